@@ -1,0 +1,17 @@
+package org.rimeward.cli;
+
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+@Command(name = "calc", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+    description = "TODO")
+final class CalcCommand implements Runnable {
+  @Spec CommandSpec spec;
+
+  @Override
+  public void run() {
+    throw new ParameterException(spec.commandLine(), "a subcommand is required");
+  }
+}

@@ -1,0 +1,50 @@
+package org.rimeward.cli;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.util.Properties;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.IVersionProvider;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+@Command(name = "rimeward", mixinStandardHelpOptions = true,
+    versionProvider = RimewardCommand.Version.class,
+    description = "Frost-protection decision support for orchards, vineyards and berry fields.",
+    subcommands = {PlanCommand.class, ProfileCommand.class, AuditCommand.class, CalcCommand.class},
+    footer = {"", Cautions.HELP_FOOTER})
+public final class RimewardCommand implements Runnable {
+  @Mixin GlobalOptions global = new GlobalOptions();
+  @Spec CommandSpec spec;
+
+  @Override
+  public void run() {
+    throw new ParameterException(spec.commandLine(), "a command is required: plan, profile, audit or calc");
+  }
+
+  /** The version written into the jar's manifest, or the build's properties when not in a jar. */
+  static final class Version implements IVersionProvider {
+    @Override
+    public String[] getVersion() {
+      return new String[] {"rimeward " + version()};
+    }
+  }
+
+  public static String version() {
+    String v = RimewardCommand.class.getPackage().getImplementationVersion();
+    if (v != null) {
+      return v;
+    }
+    try (InputStream in = RimewardCommand.class.getResourceAsStream("/org/rimeward/version.properties")) {
+      Properties p = new Properties();
+      if (in != null) {
+        p.load(in);
+      }
+      return p.getProperty("version", "unknown");
+    } catch (IOException e) {
+      return "unknown";
+    }
+  }
+}

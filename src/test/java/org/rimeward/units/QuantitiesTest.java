@@ -1,0 +1,62 @@
+package org.rimeward.units;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+class QuantitiesTest {
+  // Conversion factors: NIST SP 811 (2008), Appendix B (foot, acre, gallon, inch, mile, knot).
+  @ParameterizedTest
+  @CsvSource({
+      "-2.2C, TEMPERATURE, -2.2",
+      "28F, TEMPERATURE, -2.2222",
+      "28 °F, TEMPERATURE, -2.2222",
+      "271.15 K, TEMPERATURE, -2.0",
+      "1F, TEMPERATURE_DELTA, 0.5556",
+      "1.0C, TEMPERATURE_DELTA, 1.0",
+      "7 mph, SPEED, 3.1293",
+      "3 m/s, SPEED, 3.0",
+      "36 km/h, SPEED, 10.0",
+      "0.15 in/h, RATE, 3.81",
+      "3.8 mm/h, RATE, 3.8",
+      "800 ft, LENGTH, 243.84",
+      "11 ac, AREA, 4.4515",
+      "600 gpm, FLOW, 136.27",
+      "2.4 acre-ft, VOLUME, 2960.36",
+      "1.5 oz/yd2, AREAL_MASS, 50.86",
+      "1013.25 hPa, PRESSURE, 101.325",
+  })
+  void convertsToTheCanonicalUnit(String text, Dimension dim, double expected) {
+    assertThat(Quantities.parse(text, dim, "x")).isCloseTo(expected, within(0.01));
+  }
+
+  @Test
+  void bareTemperatureFollowsTheUnitSystem() {
+    assertThat(Quantities.parse("-2", Dimension.TEMPERATURE, "--temp", UnitSystem.METRIC)).isEqualTo(-2.0);
+    assertThat(Quantities.parse("32", Dimension.TEMPERATURE, "--temp", UnitSystem.US))
+        .isCloseTo(0.0, within(1e-9));
+  }
+
+  @Test
+  void bareNumberIsAnErrorThatShowsTheForms() {
+    assertThatThrownBy(() -> Quantities.parse("3", Dimension.SPEED, "wind"))
+        .isInstanceOf(QuantityException.class)
+        .hasMessageContaining("wind").hasMessageContaining("m/s").hasMessageContaining("mph");
+  }
+
+  @Test
+  void unknownUnitIsNamed() {
+    assertThatThrownBy(() -> Quantities.parse("3 furlongs", Dimension.LENGTH, "elevation"))
+        .hasMessageContaining("furlongs").hasMessageContaining("800 ft");
+  }
+
+  @Test
+  void displaysInTheChosenSystem() {
+    assertThat(Quantities.format(-2.2222222, Dimension.TEMPERATURE, UnitSystem.US, 0)).isEqualTo("28 °F");
+    assertThat(Quantities.format(3.81, Dimension.RATE, UnitSystem.US, 2)).isEqualTo("0.15 in/h");
+  }
+}
