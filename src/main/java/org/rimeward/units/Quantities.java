@@ -83,7 +83,7 @@ public final class Quantities {
       case LENGTH -> "ft";
       case AREA -> "ac";
       case FLOW -> "gpm";
-      case VOLUME -> "acre-ft";
+      case VOLUME -> "gal";
       case AREAL_MASS -> "oz/yd2";
       default -> dim.canonical();
     };

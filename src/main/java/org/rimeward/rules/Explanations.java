@@ -1,0 +1,138 @@
+package org.rimeward.rules;
+
+import java.lang.reflect.Method;
+import java.time.Instant;
+import java.time.ZoneId;
+import java.time.format.DateTimeFormatter;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.function.Function;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.rimeward.rules.facts.Moment;
+import org.rimeward.units.Dimension;
+import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitSystem;
+
+/**
+ * Renders a rule's explanation template. A placeholder {@code {name}} or {@code {name.part}} names
+ * a variable the rule bound ({@code $name}) and, optionally, an accessor of it. The unit is read
+ * from the name's suffix, as everywhere in Rimeward: {@code ...C} a temperature, {@code ...MmH} a
+ * rate, {@code ...Ms} a wind speed, {@code ...M3H} a flow, {@code ...M3} a volume, {@code ...Ha}
+ * an area, {@code ...Pct} a percentage. Times show as local clock times in the farm's zone.
+ */
+public final class Explanations {
+  private static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z][A-Za-z0-9_]*(?:\\.[A-Za-z][A-Za-z0-9_]*)*)}");
+  private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
+
+  private Explanations() {}
+
+  /** The placeholder names of a template, each resolved against the rule's bound variables. */
+  static Map<String, Object> resolve(String template, Function<String, Object> declaration) {
+    Map<String, Object> out = new LinkedHashMap<>();
+    Matcher m = PLACEHOLDER.matcher(template);
+    while (m.find()) {
+      String path = m.group(1);
+      if (out.containsKey(path)) {
+        continue;
+      }
+      String[] parts = path.split("\\.");
+      Object v = declaration.apply(parts[0]);
+      for (int i = 1; i < parts.length && v != null; i++) {
+        v = accessor(v, parts[i]);
+      }
+      out.put(path, v);
+    }
+    return out;
+  }
+
+  private static Object accessor(Object target, String name) {
+    try {
+      Method method = target.getClass().getMethod(name);
+      return method.invoke(target);
+    } catch (ReflectiveOperationException e) {
+      throw new IllegalStateException("explanation placeholder '" + name + "' is not an accessor of "
+          + target.getClass().getSimpleName(), e);
+    }
+  }
+
+  /** Fills a template with already resolved values, in the given units and zone. */
+  public static String render(String template, Map<String, Object> values, UnitSystem units, ZoneId zone) {
+    Matcher m = PLACEHOLDER.matcher(template);
+    StringBuilder sb = new StringBuilder();
+    while (m.find()) {
+      String path = m.group(1);
+      String last = path.substring(path.lastIndexOf('.') + 1);
+      m.appendReplacement(sb, Matcher.quoteReplacement(format(last, values.get(path), units, zone)));
+    }
+    m.appendTail(sb);
+    return sb.toString();
+  }
+
+  static String format(String name, Object v, UnitSystem units, ZoneId zone) {
+    if (v == null) {
+      return "none";
+    }
+    if (v instanceof Moment moment) {
+      return CLOCK.format(moment.at().atZone(zone));
+    }
+    if (v instanceof Instant t) {
+      return CLOCK.format(t.atZone(zone));
+    }
+    if (v instanceof Number n) {
+      double d = n.doubleValue();
+      Dimension dim = dimensionOf(name);
+      if (dim == null) {
+        return n instanceof Integer || n instanceof Long ? n.toString()
+            : String.format(Locale.ROOT, "%.1f", d);
+      }
+      int decimals = switch (dim) {
+        case FLOW, VOLUME, PERCENT -> 0;
+        case RATE -> units == UnitSystem.US ? 2 : 1;
+        default -> 1;
+      };
+      if (dim == Dimension.PERCENT) {
+        return String.format(Locale.ROOT, "%.0f %%", d);
+      }
+      return Quantities.format(d, dim, units, decimals);
+    }
+    if (v instanceof Boolean b) {
+      return b ? "yes" : "no";
+    }
+    if (v instanceof Enum<?> e) {
+      return e.name().toLowerCase(Locale.ROOT).replace('_', '-');
+    }
+    return v.toString();
+  }
+
+  static Dimension dimensionOf(String name) {
+    if (name.endsWith("M3H")) {
+      return Dimension.FLOW;
+    }
+    if (name.endsWith("M3")) {
+      return Dimension.VOLUME;
+    }
+    if (name.endsWith("MmH")) {
+      return Dimension.RATE;
+    }
+    if (name.endsWith("Ms")) {
+      return Dimension.SPEED;
+    }
+    if (name.endsWith("Ha")) {
+      return Dimension.AREA;
+    }
+    if (name.endsWith("Pct")) {
+      return Dimension.PERCENT;
+    }
+    String lower = name.toLowerCase(Locale.ROOT);
+    if (lower.endsWith("deltac") || lower.endsWith("marginc") || lower.endsWith("protectionc")
+        || lower.endsWith("depressionc") || lower.endsWith("offsetc")) {
+      return Dimension.TEMPERATURE_DELTA;
+    }
+    if (name.endsWith("C")) {
+      return Dimension.TEMPERATURE;
+    }
+    return null;
+  }
+}

@@ -1,0 +1,158 @@
+package org.rimeward.rules;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.HexFormat;
+import java.util.List;
+import java.util.stream.Stream;
+import org.kie.api.KieBase;
+import org.kie.api.KieServices;
+import org.kie.api.builder.KieBuilder;
+import org.kie.api.builder.KieFileSystem;
+import org.kie.api.builder.Message;
+import org.kie.api.builder.ReleaseId;
+import org.kie.api.runtime.KieContainer;
+import org.kie.api.runtime.KieSession;
+import org.rimeward.io.BadInputException;
+
+/**
+ * A compiled set of rule files read from a folder ({@code rules/} by default). This is the only
+ * class, with its listener, that talks to the rule engine. Rule files are read at run time, so an
+ * agronomist can change a rule without rebuilding Rimeward; a file that does not compile stops
+ * the run with the file, line and compiler message.
+ */
+public final class RuleBook {
+  /** The agenda groups, in the order they run: derived facts first, cautions last. */
+  public static final List<String> PHASES = List.of("infer", "decide", "water", "status", "cautions");
+
+  private final Path folder;
+  private final List<RuleFile> files;
+  private final String contentHash;
+  private final KieBase kieBase;
+
+  /** A rule file as read: its path relative to the rules folder, and its text. */
+  public record RuleFile(String name, String text, String sha256) {}
+
+  private RuleBook(Path folder, List<RuleFile> files, String contentHash, KieBase kieBase) {
+    this.folder = folder;
+    this.files = files;
+    this.contentHash = contentHash;
+    this.kieBase = kieBase;
+  }
+
+  /** Reads and compiles every {@code .drl} file below {@code folder}. */
+  public static RuleBook load(Path folder) {
+    if (!Files.isDirectory(folder)) {
+      throw new BadInputException("rules folder " + folder + " does not exist; pass --rules DIR"
+          + " with the folder that holds the .drl files");
+    }
+    List<RuleFile> files = readFiles(folder);
+    if (files.isEmpty()) {
+      throw new BadInputException("rules folder " + folder + " holds no .drl files");
+    }
+    return compile(folder, files);
+  }
+
+  /** Compiles rule files given as text, for tests and for replaying recorded rules. */
+  public static RuleBook compile(Path folder, List<RuleFile> files) {
+    KieServices ks = KieServices.Factory.get();
+    KieFileSystem kfs = ks.newKieFileSystem();
+    String hash = hashOf(files);
+    ReleaseId release = ks.newReleaseId("org.rimeward.rules", "rules", "0.0.0-" + hash.substring(0, 16));
+    kfs.generateAndWritePomXML(release);
+    for (RuleFile f : files) {
+      kfs.write("src/main/resources/" + f.name(), f.text());
+    }
+    KieBuilder builder = ks.newKieBuilder(kfs).buildAll();
+    List<Message> errors = builder.getResults().getMessages(Message.Level.ERROR);
+    if (!errors.isEmpty()) {
+      Message first = errors.get(0);
+      String path = first.getPath() == null ? "?" : first.getPath().replaceFirst("^src/main/resources/", "");
+      String where = folder.resolve(path) + (first.getLine() > 0 ? ":" + first.getLine() : "");
+      throw new BadInputException(where + ": rule file does not compile: "
+          + first.getText().strip().replaceAll("\\s+", " ")
+          + (errors.size() > 1 ? " (and " + (errors.size() - 1) + " more errors)" : "")
+          + "; fix the rule file or pass --rules with a folder that compiles");
+    }
+    KieContainer container = ks.newKieContainer(release);
+    return new RuleBook(folder, List.copyOf(files), hash, container.getKieBase());
+  }
+
+  private static List<RuleFile> readFiles(Path folder) {
+    try (Stream<Path> walk = Files.walk(folder)) {
+      List<Path> paths = walk.filter(p -> p.toString().endsWith(".drl")).sorted().toList();
+      List<RuleFile> out = new ArrayList<>();
+      for (Path p : paths) {
+        String text = Files.readString(p, StandardCharsets.UTF_8);
+        String name = folder.relativize(p).toString().replace('\\', '/');
+        out.add(new RuleFile(name, text, sha256(text)));
+      }
+      return out;
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  public Path folder() {
+    return folder;
+  }
+
+  public List<RuleFile> files() {
+    return files;
+  }
+
+  /** SHA-256 over the rule files' names and texts, in name order. */
+  public String contentHash() {
+    return contentHash;
+  }
+
+  /** Inserts the facts, runs the phases in order and returns what the rules concluded and why. */
+  public Outcome run(List<?> facts, ZoneId zone) {
+    KieSession session = kieBase.newKieSession();
+    TrailListener trail = new TrailListener(zone);
+    session.addEventListener(trail);
+    try {
+      for (Object f : facts) {
+        session.insert(f);
+      }
+      for (int i = PHASES.size() - 1; i >= 0; i--) {
+        session.getAgenda().getAgendaGroup(PHASES.get(i)).setFocus();
+      }
+      session.fireAllRules();
+      List<Object> all = new ArrayList<>(session.getObjects());
+      return new Outcome(all, trail.fired());
+    } finally {
+      session.dispose();
+    }
+  }
+
+  /** Everything in working memory after the run (inputs and conclusions), and the trail. */
+  public record Outcome(List<Object> facts, List<FiredRule> trail) {
+    public <T> List<T> all(Class<T> type) {
+      return facts.stream().filter(type::isInstance).map(type::cast).toList();
+    }
+  }
+
+  private static String hashOf(List<RuleFile> files) {
+    StringBuilder sb = new StringBuilder();
+    files.stream().sorted(java.util.Comparator.comparing(RuleFile::name))
+        .forEach(f -> sb.append(f.name()).append('\0').append(f.text()).append('\0'));
+    return sha256(sb.toString());
+  }
+
+  static String sha256(String text) {
+    try {
+      return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256")
+          .digest(text.getBytes(StandardCharsets.UTF_8)));
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+}

@@ -1,0 +1,190 @@
+package org.rimeward.rules.facts;
+
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
+import java.util.Arrays;
+import java.util.EnumMap;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * One block's night, step by step: the values the physics computed for each forecast step.
+ * Rules ask it questions (when does a value first fall to a threshold, what is the largest value
+ * between two moments); the thresholds themselves are the rules' business. Between steps values
+ * are taken as linear in time, and crossing moments are given to the minute, rounded to the safe
+ * side (a start earlier, a stop later).
+ */
+public final class NightSeries {
+  private final long[] epochSeconds;
+  private final int[] lines;
+  private final Map<Measure, double[]> values;
+
+  public NightSeries(long[] epochSeconds, int[] lines, Map<Measure, double[]> values) {
+    Objects.requireNonNull(epochSeconds, "epochSeconds");
+    if (epochSeconds.length == 0) {
+      throw new IllegalArgumentException("a night series needs at least one step");
+    }
+    for (int i = 1; i < epochSeconds.length; i++) {
+      if (epochSeconds[i] <= epochSeconds[i - 1]) {
+        throw new IllegalArgumentException("night series steps must be in time order");
+      }
+    }
+    if (lines.length != epochSeconds.length) {
+      throw new IllegalArgumentException("one line number per step is required");
+    }
+    EnumMap<Measure, double[]> copy = new EnumMap<>(Measure.class);
+    for (Measure m : Measure.values()) {
+      double[] v = values.get(m);
+      if (v == null || v.length != epochSeconds.length) {
+        throw new IllegalArgumentException("night series needs " + epochSeconds.length
+            + " values of " + m);
+      }
+      copy.put(m, v.clone());
+    }
+    this.epochSeconds = epochSeconds.clone();
+    this.lines = lines.clone();
+    this.values = copy;
+  }
+
+  public int size() {
+    return epochSeconds.length;
+  }
+
+  public Instant start() {
+    return Instant.ofEpochSecond(epochSeconds[0]);
+  }
+
+  public Instant end() {
+    return Instant.ofEpochSecond(epochSeconds[epochSeconds.length - 1]);
+  }
+
+  public Instant timeAt(int i) {
+    return Instant.ofEpochSecond(epochSeconds[i]);
+  }
+
+  public double valueAt(Measure m, int i) {
+    return values.get(m)[i];
+  }
+
+  public int lineAt(int i) {
+    return lines[i];
+  }
+
+  /** The first moment the value falls to {@code threshold} or below, rounded down to the minute. */
+  public Optional<Moment> firstAtOrBelow(Measure m, double threshold) {
+    double[] v = values.get(m);
+    if (v[0] <= threshold) {
+      return Optional.of(new Moment(start(), v[0], true, lines[0]));
+    }
+    for (int i = 1; i < v.length; i++) {
+      if (v[i] <= threshold) {
+        double f = (v[i - 1] - threshold) / (v[i - 1] - v[i]);
+        long t = epochSeconds[i - 1] + Math.round(f * (epochSeconds[i] - epochSeconds[i - 1]));
+        Instant at = Instant.ofEpochSecond(t).truncatedTo(ChronoUnit.MINUTES);
+        return Optional.of(new Moment(at, threshold, false, lines[i]));
+      }
+    }
+    return Optional.empty();
+  }
+
+  /**
+   * The first moment at or after {@code notBefore} from which the value stays at or above
+   * {@code threshold} to the end of the series, rounded up to the minute; empty if it never does.
+   */
+  public Optional<Moment> firstStaysAtOrAbove(Measure m, double threshold, Instant notBefore) {
+    double[] v = values.get(m);
+    long nb = notBefore.getEpochSecond();
+    int last = v.length - 1;
+    if (v[last] < threshold || epochSeconds[last] < nb) {
+      return Optional.empty();
+    }
+    int i = last;
+    while (i > 0 && v[i - 1] >= threshold && epochSeconds[i - 1] >= nb) {
+      i--;
+    }
+    // Steps i..last are at or above; find the crossing between i-1 and i if there is one.
+    long t = epochSeconds[i];
+    if (i > 0 && v[i - 1] < threshold) {
+      double f = (threshold - v[i - 1]) / (v[i] - v[i - 1]);
+      t = epochSeconds[i - 1] + Math.round(f * (epochSeconds[i] - epochSeconds[i - 1]));
+    }
+    if (t < nb) {
+      t = nb;
+    }
+    Instant at = Instant.ofEpochSecond(t);
+    if (at.truncatedTo(ChronoUnit.MINUTES).isBefore(at)) {
+      at = at.truncatedTo(ChronoUnit.MINUTES).plus(1, ChronoUnit.MINUTES);
+    }
+    return Optional.of(new Moment(at, Math.max(threshold, valueAtTime(m, at)), false, lines[i]));
+  }
+
+  /** The value at a moment, linear between steps; the end values outside the series. */
+  public double valueAtTime(Measure m, Instant at) {
+    double[] v = values.get(m);
+    long t = at.getEpochSecond();
+    if (t <= epochSeconds[0]) {
+      return v[0];
+    }
+    for (int i = 1; i < v.length; i++) {
+      if (t <= epochSeconds[i]) {
+        double f = (double) (t - epochSeconds[i - 1]) / (epochSeconds[i] - epochSeconds[i - 1]);
+        return v[i - 1] + f * (v[i] - v[i - 1]);
+      }
+    }
+    return v[v.length - 1];
+  }
+
+  /** The largest value at the steps between two moments, and at the two moments themselves. */
+  public double max(Measure m, Instant from, Instant to) {
+    double best = Math.max(valueAtTime(m, from), valueAtTime(m, to));
+    for (int i = 0; i < epochSeconds.length; i++) {
+      Instant t = timeAt(i);
+      if (!t.isBefore(from) && !t.isAfter(to)) {
+        best = Math.max(best, values.get(m)[i]);
+      }
+    }
+    return best;
+  }
+
+  /** The smallest value at the steps between two moments, and at the two moments themselves. */
+  public double min(Measure m, Instant from, Instant to) {
+    double best = Math.min(valueAtTime(m, from), valueAtTime(m, to));
+    for (int i = 0; i < epochSeconds.length; i++) {
+      Instant t = timeAt(i);
+      if (!t.isBefore(from) && !t.isAfter(to)) {
+        best = Math.min(best, values.get(m)[i]);
+      }
+    }
+    return best;
+  }
+
+  /** The step where the value is smallest (the first such step), or where it is largest. */
+  public int indexOfMin(Measure m) {
+    double[] v = values.get(m);
+    int best = 0;
+    for (int i = 1; i < v.length; i++) {
+      if (v[i] < v[best]) {
+        best = i;
+      }
+    }
+    return best;
+  }
+
+  public int indexOfMax(Measure m) {
+    double[] v = values.get(m);
+    int best = 0;
+    for (int i = 1; i < v.length; i++) {
+      if (v[i] > v[best]) {
+        best = i;
+      }
+    }
+    return best;
+  }
+
+  @Override
+  public String toString() {
+    return "NightSeries[" + start() + ".." + end() + ", " + size() + " steps, min air "
+        + Arrays.stream(values.get(Measure.AIR_C)).min().orElse(Double.NaN) + " C]";
+  }
+}
