@@ -82,6 +82,9 @@ public final class Explanations {
     }
     if (v instanceof Number n) {
       double d = n.doubleValue();
+      if (Double.isNaN(d)) {
+        return "no limit";
+      }
       Dimension dim = dimensionOf(name);
       if (dim == null) {
         return n instanceof Integer || n instanceof Long ? n.toString()

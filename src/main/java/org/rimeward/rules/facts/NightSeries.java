@@ -6,7 +6,7 @@ import java.util.Arrays;
 import java.util.EnumMap;
 import java.util.Map;
 import java.util.Objects;
-import java.util.Optional;
+import java.util.List;
 
 /**
  * One block's night, step by step: the values the physics computed for each forecast step.
@@ -71,33 +71,36 @@ public final class NightSeries {
     return lines[i];
   }
 
-  /** The first moment the value falls to {@code threshold} or below, rounded down to the minute. */
-  public Optional<Moment> firstAtOrBelow(Measure m, double threshold) {
+  /**
+   * The first moment the value falls to {@code threshold} or below, rounded down to the minute.
+   * Answers are lists of none or one, so that rules can match on them with {@code from}.
+   */
+  public List<Moment> firstAtOrBelow(Measure m, double threshold) {
     double[] v = values.get(m);
     if (v[0] <= threshold) {
-      return Optional.of(new Moment(start(), v[0], true, lines[0]));
+      return List.of(new Moment(start(), v[0], true, lines[0]));
     }
     for (int i = 1; i < v.length; i++) {
       if (v[i] <= threshold) {
         double f = (v[i - 1] - threshold) / (v[i - 1] - v[i]);
         long t = epochSeconds[i - 1] + Math.round(f * (epochSeconds[i] - epochSeconds[i - 1]));
         Instant at = Instant.ofEpochSecond(t).truncatedTo(ChronoUnit.MINUTES);
-        return Optional.of(new Moment(at, threshold, false, lines[i]));
+        return List.of(new Moment(at, threshold, false, lines[i]));
       }
     }
-    return Optional.empty();
+    return List.of();
   }
 
   /**
    * The first moment at or after {@code notBefore} from which the value stays at or above
    * {@code threshold} to the end of the series, rounded up to the minute; empty if it never does.
    */
-  public Optional<Moment> firstStaysAtOrAbove(Measure m, double threshold, Instant notBefore) {
+  public List<Moment> firstStaysAtOrAbove(Measure m, double threshold, Instant notBefore) {
     double[] v = values.get(m);
     long nb = notBefore.getEpochSecond();
     int last = v.length - 1;
     if (v[last] < threshold || epochSeconds[last] < nb) {
-      return Optional.empty();
+      return List.of();
     }
     int i = last;
     while (i > 0 && v[i - 1] >= threshold && epochSeconds[i - 1] >= nb) {
@@ -116,7 +119,7 @@ public final class NightSeries {
     if (at.truncatedTo(ChronoUnit.MINUTES).isBefore(at)) {
       at = at.truncatedTo(ChronoUnit.MINUTES).plus(1, ChronoUnit.MINUTES);
     }
-    return Optional.of(new Moment(at, Math.max(threshold, valueAtTime(m, at)), false, lines[i]));
+    return List.of(new Moment(at, Math.max(threshold, valueAtTime(m, at)), false, lines[i]));
   }
 
   /** The value at a moment, linear between steps; the end values outside the series. */

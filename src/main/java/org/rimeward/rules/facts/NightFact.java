@@ -1,0 +1,19 @@
+package org.rimeward.rules.facts;
+
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneId;
+import java.util.Objects;
+
+/** The night being planned: the evening's date, the farm's zone, sunset and next sunrise. */
+public record NightFact(LocalDate date, ZoneId zone, Instant sunset, Instant sunrise) {
+  public NightFact {
+    Objects.requireNonNull(date, "date");
+    Objects.requireNonNull(zone, "zone");
+    Objects.requireNonNull(sunset, "sunset");
+    Objects.requireNonNull(sunrise, "sunrise");
+    if (!sunrise.isAfter(sunset)) {
+      throw new IllegalArgumentException("sunrise " + sunrise + " must follow sunset " + sunset);
+    }
+  }
+}

@@ -1,0 +1,40 @@
+package org.rimeward.rules.facts;
+
+import java.time.Instant;
+import org.rimeward.water.Demand;
+
+/**
+ * Decided: sprinkle this block from start to stop. Flow and water are at the installed rate.
+ *
+ * @param requiredRateMmH the rate the coldest and windiest part of the window needs
+ * @param flowM3H the block's draw while running: rate × area
+ * @param waterM3 the water over the whole window
+ * @param killPct expected kill without protection, carried for sharing out short water
+ * @param cropValuePerHa NaN when the farm gave none
+ */
+public record SprinklePlan(String blockId, String sourceId, Instant start, Instant stop,
+    double requiredRateMmH, double installedRateMmH, double flowM3H, double waterM3,
+    double killPct, double areaHa, double cropValuePerHa) {
+
+  /** The plan for a block between two moments: 1 mm over 1 ha is 10 m³. */
+  public static SprinklePlan of(BlockFact b, BlockNight n, Instant start, Instant stop) {
+    double hours = (stop.getEpochSecond() - start.getEpochSecond()) / 3600.0;
+    double flow = b.installedRateMmH() * b.areaHa() * 10.0;
+    double required = n.series().max(Measure.REQUIRED_RATE_MM_H, start, stop);
+    return new SprinklePlan(b.blockId(), b.sourceId(), start, stop, required,
+        b.installedRateMmH(), flow, flow * hours, n.killPctUnprotected(), b.areaHa(),
+        b.cropValuePerHa());
+  }
+
+  public double hours() {
+    return (stop.getEpochSecond() - start.getEpochSecond()) / 3600.0;
+  }
+
+  public boolean rateShort() {
+    return installedRateMmH < requiredRateMmH;
+  }
+
+  Demand demand() {
+    return new Demand(blockId, start, stop, flowM3H, waterM3, killPct / 100.0, areaHa, cropValuePerHa);
+  }
+}

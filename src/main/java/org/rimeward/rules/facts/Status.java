@@ -1,0 +1,9 @@
+package org.rimeward.rules.facts;
+
+/** What the plan can do for a block tonight. */
+public enum Status {
+  NOT_NEEDED,
+  PROTECTED,
+  SHORT_OF_WATER,
+  UNPROTECTED
+}

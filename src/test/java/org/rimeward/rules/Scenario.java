@@ -1,0 +1,200 @@
+package org.rimeward.rules;
+
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneId;
+import java.time.ZonedDateTime;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import org.rimeward.rules.facts.BlockFact;
+import org.rimeward.rules.facts.BlockNight;
+import org.rimeward.rules.facts.Measure;
+import org.rimeward.rules.facts.NightFact;
+import org.rimeward.rules.facts.NightSeries;
+import org.rimeward.rules.facts.PolicyFact;
+import org.rimeward.rules.facts.StopBasis;
+import org.rimeward.rules.facts.TargetBasis;
+import org.rimeward.rules.facts.WaterSourceFact;
+
+/**
+ * Minimal facts for one rule test: a night with hourly steps from 18:00 and blocks whose series
+ * are given directly, so a test sets exactly the numbers a rule looks at. Invented values.
+ */
+final class Scenario {
+  static final ZoneId ZONE = ZoneId.of("America/Los_Angeles");
+  static final LocalDate DATE = LocalDate.of(2026, 4, 10);
+  static final ZonedDateTime FIRST = DATE.atTime(18, 0).atZone(ZONE);
+  static final Instant SUNSET = DATE.atTime(19, 40).atZone(ZONE).toInstant();
+  static final Instant SUNRISE = DATE.plusDays(1).atTime(6, 30).atZone(ZONE).toInstant();
+
+  PolicyFact policy = new PolicyFact(TargetBasis.T10, Double.NaN, 1.0, StopBasis.WET_BULB_ABOVE_FREEZING);
+  final List<Object> facts = new ArrayList<>();
+
+  static Instant at(int dayOffset, int hour, int minute) {
+    return DATE.plusDays(dayOffset).atTime(hour, minute).atZone(ZONE).toInstant();
+  }
+
+  Scenario policy(PolicyFact p) {
+    this.policy = p;
+    return this;
+  }
+
+  Scenario source(String id, double maxFlowM3H, double volumeM3) {
+    facts.add(new WaterSourceFact(id, maxFlowM3H, volumeM3));
+    return this;
+  }
+
+  /** A block builder; the series is hourly from 18:00, one value per hour. */
+  BlockBuilder block(String id) {
+    return new BlockBuilder(id);
+  }
+
+  List<Object> facts() {
+    List<Object> all = new ArrayList<>();
+    all.add(new NightFact(DATE, ZONE, SUNSET, SUNRISE));
+    all.add(policy);
+    all.addAll(facts);
+    return all;
+  }
+
+  final class BlockBuilder {
+    final String id;
+    String crop = "apple";
+    String stage = "full-bloom";
+    boolean bloom = true;
+    double areaHa = 4;
+    double t10C = -2.2;
+    double t90C = -3.9;
+    double rateMmH = 0;
+    String source;
+    double coverC = 0;
+    double deployHours = 2;
+    double valuePerHa = Double.NaN;
+    double killPct = 0;
+    double[] air;
+    double[] wetBulb;
+    double depressionC = 1.0;
+    double[] wind;
+    double[] rate;
+    double[] cloud;
+
+    BlockBuilder(String id) {
+      this.id = id;
+    }
+
+    BlockBuilder thresholds(double t10, double t90) {
+      t10C = t10;
+      t90C = t90;
+      return this;
+    }
+
+    BlockBuilder stage(String s, boolean isBloom) {
+      stage = s;
+      bloom = isBloom;
+      return this;
+    }
+
+    BlockBuilder area(double ha) {
+      areaHa = ha;
+      return this;
+    }
+
+    BlockBuilder sprinklers(double r, String src) {
+      rateMmH = r;
+      source = src;
+      return this;
+    }
+
+    BlockBuilder covers(double c, double hours) {
+      coverC = c;
+      deployHours = hours;
+      return this;
+    }
+
+    BlockBuilder value(double perHa) {
+      valuePerHa = perHa;
+      return this;
+    }
+
+    BlockBuilder kill(double pct) {
+      killPct = pct;
+      return this;
+    }
+
+    /** Air and wet bulb per hour; the dry bud is air less the depression, the wet bud likewise. */
+    BlockBuilder hourly(double[] airC, double[] wetBulbC) {
+      air = airC;
+      wetBulb = wetBulbC;
+      return this;
+    }
+
+    BlockBuilder depression(double c) {
+      depressionC = c;
+      return this;
+    }
+
+    BlockBuilder wind(double... ms) {
+      wind = ms;
+      return this;
+    }
+
+    BlockBuilder rate(double... mmH) {
+      rate = mmH;
+      return this;
+    }
+
+    BlockBuilder cloud(double... pct) {
+      cloud = pct;
+      return this;
+    }
+
+    Scenario done() {
+      int n = air.length;
+      long[] t = new long[n];
+      int[] lines = new int[n];
+      Map<Measure, double[]> v = new EnumMap<>(Measure.class);
+      double[] dry = new double[n];
+      double[] wet = new double[n];
+      for (int i = 0; i < n; i++) {
+        t[i] = FIRST.plusHours(i).toEpochSecond();
+        lines[i] = i + 2;
+        dry[i] = air[i] - depressionC;
+        wet[i] = wetBulb[i] - depressionC;
+      }
+      v.put(Measure.AIR_C, air);
+      v.put(Measure.WET_BULB_C, wetBulb);
+      v.put(Measure.DRY_BUD_C, dry);
+      v.put(Measure.WET_BUD_C, wet);
+      v.put(Measure.WIND_2M_MS, wind != null ? wind : fill(n, 1.0));
+      v.put(Measure.REQUIRED_RATE_MM_H, rate != null ? rate : fill(n, 2.0));
+      v.put(Measure.CLOUD_PCT, cloud != null ? cloud : fill(n, 0));
+      v.put(Measure.SOLAR_WM2, fill(n, 0));
+      NightSeries s = new NightSeries(t, lines, v);
+      int cold = s.indexOfMin(Measure.DRY_BUD_C);
+      double maxWindFreezing = 0;
+      for (int i = 0; i < n; i++) {
+        if (air[i] <= 0) {
+          maxWindFreezing = Math.max(maxWindFreezing, v.get(Measure.WIND_2M_MS)[i]);
+        }
+      }
+      facts.add(new BlockFact(id, crop, null, stage, stage.replace('-', ' '), bloom, areaHa, t10C, t90C,
+          "test table", 0, valuePerHa, rateMmH > 0, rateMmH, source, coverC > 0, coverC,
+          coverC > 0 ? "test cover" : null, deployHours));
+      facts.add(new BlockNight(id, s, min(air), min(dry), min(wetBulb), min(wet), depressionC,
+          s.timeAt(cold), lines[cold], killPct, maxWindFreezing));
+      return Scenario.this;
+    }
+  }
+
+  static double[] fill(int n, double v) {
+    double[] a = new double[n];
+    java.util.Arrays.fill(a, v);
+    return a;
+  }
+
+  static double min(double[] a) {
+    return java.util.Arrays.stream(a).min().orElseThrow();
+  }
+}
