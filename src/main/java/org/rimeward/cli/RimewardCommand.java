@@ -1,8 +1,5 @@
 package org.rimeward.cli;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.util.Properties;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.IVersionProvider;
 import picocli.CommandLine.Mixin;
@@ -28,23 +25,7 @@ public final class RimewardCommand implements Runnable {
   static final class Version implements IVersionProvider {
     @Override
     public String[] getVersion() {
-      return new String[] {"rimeward " + version()};
-    }
-  }
-
-  public static String version() {
-    String v = RimewardCommand.class.getPackage().getImplementationVersion();
-    if (v != null) {
-      return v;
-    }
-    try (InputStream in = RimewardCommand.class.getResourceAsStream("/org/rimeward/version.properties")) {
-      Properties p = new Properties();
-      if (in != null) {
-        p.load(in);
-      }
-      return p.getProperty("version", "unknown");
-    } catch (IOException e) {
-      return "unknown";
+      return new String[] {"rimeward " + org.rimeward.BuildInfo.version()};
     }
   }
 }

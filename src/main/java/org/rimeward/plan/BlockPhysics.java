@@ -1,0 +1,91 @@
+package org.rimeward.plan;
+
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import org.rimeward.farm.Block;
+import org.rimeward.io.BadInputException;
+import org.rimeward.physics.BudTemperature;
+import org.rimeward.physics.KillCurve;
+import org.rimeward.physics.Psychrometrics;
+import org.rimeward.physics.SprinklerBalance;
+import org.rimeward.physics.Wind;
+import org.rimeward.rules.facts.BlockNight;
+import org.rimeward.rules.facts.Measure;
+import org.rimeward.rules.facts.NightSeries;
+import org.rimeward.weather.ForecastStep;
+
+/**
+ * Computes one block's night, step by step, with the physics core: the air at the block, wet
+ * bulb at the site's pressure, the radiative cooling of a bud, and the water an iced bud needs.
+ */
+final class BlockPhysics {
+  /**
+   * Above this air temperature an iced bud at 0 °C gains heat from the air, so sprinkling needs
+   * no water to hold it; the sprinkler balance is only valid up to it.
+   */
+  static final double NO_ICE_NEEDED_ABOVE_C = 5.0;
+
+  /** Supply water temperature when the farm file gives none: pond water on a spring night. */
+  static final double DEFAULT_WATER_TEMP_C = 5.0;
+
+  private BlockPhysics() {}
+
+  static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
+      double pressureKPa, String forecastName) {
+    int n = steps.size();
+    long[] t = new long[n];
+    int[] lines = new int[n];
+    Map<Measure, double[]> v = new EnumMap<>(Measure.class);
+    for (Measure m : Measure.values()) {
+      v.put(m, new double[n]);
+    }
+    double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(DEFAULT_WATER_TEMP_C);
+    double maxWindFreezing = 0;
+    for (int i = 0; i < n; i++) {
+      ForecastStep s = steps.get(i);
+      t[i] = s.time().getEpochSecond();
+      lines[i] = s.line();
+      try {
+        double air = s.airTempC() + block.coldAirOffsetC();
+        // Air cooled in a cold pocket cannot hold more vapour than saturation: dew point ≤ air.
+        double dew = Math.min(s.dewPointC(), air);
+        double wind2m = Wind.at2mMs(s.windMs(), s.windHeightM());
+        double wetBulb = Psychrometrics.wetBulbC(air, dew, pressureKPa);
+        BudTemperature bud = BudTemperature.estimate(air, dew, wind2m, s.cloudPct());
+        double rate = air > NO_ICE_NEEDED_ABOVE_C ? 0.0
+            : SprinklerBalance.requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa);
+        v.get(Measure.AIR_C)[i] = air;
+        v.get(Measure.WET_BULB_C)[i] = wetBulb;
+        v.get(Measure.DRY_BUD_C)[i] = air - bud.depressionC();
+        v.get(Measure.WET_BUD_C)[i] = wetBulb - bud.depressionC();
+        v.get(Measure.WIND_2M_MS)[i] = wind2m;
+        v.get(Measure.REQUIRED_RATE_MM_H)[i] = rate;
+        v.get(Measure.CLOUD_PCT)[i] = s.cloudPct();
+        v.get(Measure.SOLAR_WM2)[i] = s.solarWm2().orElse(0.0);
+        if (air <= 0) {
+          maxWindFreezing = Math.max(maxWindFreezing, wind2m);
+        }
+      } catch (IllegalArgumentException e) {
+        throw new BadInputException(forecastName + ":" + s.line() + ": block " + block.id()
+            + ": " + e.getMessage() + "; check this forecast line", e);
+      }
+    }
+    NightSeries series = new NightSeries(t, lines, v);
+    int cold = series.indexOfMin(Measure.DRY_BUD_C);
+    double minDryBud = series.valueAt(Measure.DRY_BUD_C, cold);
+    double maxDepression = 0;
+    for (int i = 0; i < n; i++) {
+      maxDepression = Math.max(maxDepression,
+          series.valueAt(Measure.AIR_C, i) - series.valueAt(Measure.DRY_BUD_C, i));
+    }
+    double kill = new KillCurve(t10C, t90C).killPct(minDryBud);
+    return new BlockNight(block.id(), series, min(series, Measure.AIR_C), minDryBud,
+        min(series, Measure.WET_BULB_C), min(series, Measure.WET_BUD_C), maxDepression,
+        series.timeAt(cold), series.lineAt(cold), kill, maxWindFreezing);
+  }
+
+  private static double min(NightSeries s, Measure m) {
+    return s.valueAt(m, s.indexOfMin(m));
+  }
+}

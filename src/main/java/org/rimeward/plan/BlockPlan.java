@@ -1,0 +1,46 @@
+package org.rimeward.plan;
+
+import java.time.Instant;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Optional;
+import org.rimeward.rules.FiredRule;
+import org.rimeward.rules.facts.RiskLevel;
+import org.rimeward.rules.facts.Status;
+
+/**
+ * Tonight's plan for one block, with every rule that fired for it.
+ *
+ * @param variety null when the block names none (the crop's reference table applies)
+ * @param thresholdSource where T10 and T90 came from
+ */
+public record BlockPlan(String blockId, String crop, String variety, String stage,
+    String stageName, double t10C, double t90C, String thresholdSource, double targetC,
+    double minAirC, double minBudC, double minWetBulbC, Instant coldestAt, int coldestLine,
+    RiskLevel risk, double killPctUnprotected, Status status, List<Action> actions,
+    List<FiredRule> cautions, List<FiredRule> rules) {
+  public BlockPlan {
+    actions = List.copyOf(actions);
+    cautions = List.copyOf(cautions);
+    rules = List.copyOf(rules);
+  }
+
+  /** When the first action begins; empty when there is nothing to do. */
+  public Optional<Instant> firstAction() {
+    return actions.stream().map(Action::begins).min(Comparator.naturalOrder());
+  }
+
+  public boolean needsAction() {
+    return !actions.isEmpty();
+  }
+
+  public Optional<Action.Sprinkle> sprinkle() {
+    return actions.stream().filter(Action.Sprinkle.class::isInstance).map(Action.Sprinkle.class::cast)
+        .findFirst();
+  }
+
+  public Optional<Action.Cover> cover() {
+    return actions.stream().filter(Action.Cover.class::isInstance).map(Action.Cover.class::cast)
+        .findFirst();
+  }
+}

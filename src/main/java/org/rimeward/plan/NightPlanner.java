@@ -1,0 +1,248 @@
+package org.rimeward.plan;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZonedDateTime;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Stream;
+import org.rimeward.crop.CropLibrary;
+import org.rimeward.crop.EffectiveProfile;
+import org.rimeward.crop.EffectiveStage;
+import org.rimeward.farm.Block;
+import org.rimeward.farm.Farm;
+import org.rimeward.farm.FarmLoader;
+import org.rimeward.farm.Policy;
+import org.rimeward.farm.Target;
+import org.rimeward.farm.WaterSource;
+import org.rimeward.io.BadInputException;
+import org.rimeward.physics.Atmosphere;
+import org.rimeward.physics.Night;
+import org.rimeward.physics.SunCalculator;
+import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.facts.BlockFact;
+import org.rimeward.rules.facts.BlockNight;
+import org.rimeward.rules.facts.NightFact;
+import org.rimeward.rules.facts.PolicyFact;
+import org.rimeward.rules.facts.StopBasis;
+import org.rimeward.rules.facts.StopBeyondForecast;
+import org.rimeward.rules.facts.TargetBasis;
+import org.rimeward.rules.facts.WaterSourceFact;
+import org.rimeward.weather.Forecast;
+import org.rimeward.weather.ForecastReader;
+import org.rimeward.weather.ForecastStep;
+
+/**
+ * The nightly decision run: reads the farm, the forecast, the crop profiles and the rules,
+ * computes each block's night with the physics core, lets the rules decide, and assembles the
+ * plan. It reads no clock: the night comes from the request or the forecast.
+ */
+public final class NightPlanner {
+  /** Steps further apart than this leave part of the night unknown. */
+  static final Duration MAX_STEP = Duration.ofMinutes(61);
+
+  /** The forecast must reach this far past sunrise, so a stop time can be found. */
+  static final Duration AFTER_SUNRISE = Duration.ofHours(1);
+
+  private final RuleBookSource rules;
+
+  /** How the planner gets its compiled rules: compiled anew, or from a cache. */
+  @FunctionalInterface
+  public interface RuleBookSource {
+    RuleBook load(Path rulesDir);
+  }
+
+  public NightPlanner() {
+    this(RuleBook::load);
+  }
+
+  public NightPlanner(RuleBookSource rules) {
+    this.rules = rules;
+  }
+
+  public Plan plan(PlanRequest request) {
+    Farm farm = FarmLoader.load(request.farmDir());
+    Path forecastFile = request.forecastFile() != null ? request.forecastFile() : farm.forecastFile();
+    Forecast forecast = ForecastReader.read(forecastFile, farm.zone());
+    CropLibrary crops = CropLibrary.load(request.cropProfilesDir());
+    RuleBook book = rules.load(request.rulesDir());
+    PlanInputs inputs = inputsOf(farm, forecastFile, request.cropProfilesDir(), book);
+    return plan(farm, forecast, crops, book, request.night(), inputs);
+  }
+
+  /** Plans a night from inputs already read. */
+  public Plan plan(Farm farm, Forecast forecast, CropLibrary crops, RuleBook book, LocalDate night,
+      PlanInputs inputs) {
+    String forecastName = forecast.file().getFileName().toString();
+    LocalDate date = night != null ? night : defaultNight(forecast, farm);
+    Night sun = SunCalculator.night(farm.latitude(), farm.longitude(), date, farm.zone());
+    Instant sunset = sun.sunset().map(ZonedDateTime::toInstant).orElseThrow(() -> new BadInputException(
+        farm.origin() + ": the sun does not set at latitude " + farm.latitude() + " on " + date
+            + "; Rimeward plans nights that have a sunset and a sunrise"));
+    Instant sunrise = sun.sunrise().map(ZonedDateTime::toInstant).orElseThrow(() -> new BadInputException(
+        farm.origin() + ": the sun does not rise at latitude " + farm.latitude() + " on "
+            + date.plusDays(1) + "; Rimeward plans nights that have a sunset and a sunrise"));
+    List<ForecastStep> window = window(forecast, forecastName, farm, date, sunset, sunrise);
+
+    NightFact nightFact = new NightFact(date, farm.zone(), sunset, sunrise);
+    PolicyFact policy = policyFact(farm.policy());
+    double pressureKPa = Atmosphere.stationPressureKPa(farm.elevationM());
+    List<Object> facts = new ArrayList<>();
+    facts.add(nightFact);
+    facts.add(policy);
+    for (WaterSource w : farm.waterSources()) {
+      facts.add(new WaterSourceFact(w.id(), w.maxFlowM3H(), w.volumeM3().orElse(Double.NaN)));
+    }
+    Map<String, BlockFact> blockFacts = new HashMap<>();
+    Map<String, BlockNight> nights = new HashMap<>();
+    for (Block b : farm.blocks()) {
+      BlockFact bf = blockFact(b, crops);
+      BlockNight bn = BlockPhysics.compute(b, bf.t10C(), bf.t90C(), window, pressureKPa, forecastName);
+      blockFacts.put(b.id(), bf);
+      nights.put(b.id(), bn);
+      facts.add(bf);
+      facts.add(bn);
+    }
+    RuleBook.Outcome outcome = book.run(facts, farm.zone());
+    List<StopBeyondForecast> beyond = outcome.all(StopBeyondForecast.class);
+    if (!beyond.isEmpty()) {
+      StopBeyondForecast first = beyond.stream().min(Comparator.comparing(StopBeyondForecast::blockId)).get();
+      throw new BadInputException(forecastName + ": the forecast ends at "
+          + first.forecastEnd().atZone(farm.zone()).toLocalTime() + " while the wet bulb on block "
+          + first.blockId() + " is still below the stop threshold; extend the forecast into the"
+          + " late morning so the plan can say when sprinkling may stop");
+    }
+    return PlanAssembly.assemble(farm, forecast, nightFact, window, blockFacts, nights, outcome,
+        inputs);
+  }
+
+  /** The evening a forecast belongs to: a run after midnight still plans the night before. */
+  static LocalDate defaultNight(Forecast forecast, Farm farm) {
+    return forecast.start().atZone(farm.zone()).minusHours(12).toLocalDate();
+  }
+
+  /**
+   * The forecast steps of the night: from the last step at or before sunset (or the first step,
+   * on a late run) to the first step at or after noon the next day, when frost is over; checked
+   * for gaps and for reaching past sunrise.
+   */
+  static List<ForecastStep> window(Forecast forecast, String name, Farm farm, LocalDate date,
+      Instant sunset, Instant sunrise) {
+    List<ForecastStep> steps = forecast.steps();
+    Instant noon = date.plusDays(1).atTime(12, 0).atZone(farm.zone()).toInstant();
+    if (!forecast.start().isBefore(sunrise)) {
+      throw new BadInputException(name + ": the forecast starts at " + local(forecast.start(), farm)
+          + ", after sunrise on " + date.plusDays(1) + "; give a forecast for the night of " + date
+          + " or pass --night with the date of the evening it covers");
+    }
+    if (forecast.end().isBefore(sunrise.plus(AFTER_SUNRISE))) {
+      throw new BadInputException(name + ": the forecast ends at " + local(forecast.end(), farm)
+          + ", before " + local(sunrise.plus(AFTER_SUNRISE), farm) + " (an hour after sunrise);"
+          + " the night must be covered from sunset until it is safe to stop sprinkling");
+    }
+    int first = 0;
+    for (int i = 0; i < steps.size(); i++) {
+      if (!steps.get(i).time().isAfter(sunset)) {
+        first = i;
+      }
+    }
+    int last = steps.size() - 1;
+    for (int i = first; i < steps.size(); i++) {
+      if (!steps.get(i).time().isBefore(noon)) {
+        last = i;
+        break;
+      }
+    }
+    List<ForecastStep> window = steps.subList(first, last + 1);
+    for (int i = 1; i < window.size(); i++) {
+      Duration gap = Duration.between(window.get(i - 1).time(), window.get(i).time());
+      if (gap.compareTo(MAX_STEP) > 0) {
+        throw new BadInputException(name + ":" + window.get(i).line() + ": " + gap.toMinutes()
+            + " minutes pass between line " + window.get(i - 1).line() + " and this line, during the"
+            + " night; the forecast must be hourly or finer from sunset to the morning");
+      }
+    }
+    return List.copyOf(window);
+  }
+
+  private static String local(Instant t, Farm farm) {
+    return t.atZone(farm.zone()).toLocalDateTime().toString().replace('T', ' ');
+  }
+
+  static PolicyFact policyFact(Policy p) {
+    Target t = p.target();
+    TargetBasis basis = t.kind() == Target.Kind.T10 ? TargetBasis.T10 : TargetBasis.FIXED;
+    StopBasis stop = switch (p.stopRule()) {
+      case WET_BULB_ABOVE_FREEZING -> StopBasis.WET_BULB_ABOVE_FREEZING;
+      case WET_BULB_ABOVE_TARGET -> StopBasis.WET_BULB_ABOVE_TARGET;
+    };
+    return new PolicyFact(basis, t.tempC().orElse(Double.NaN), p.startMarginC(), stop);
+  }
+
+  static BlockFact blockFact(Block b, CropLibrary crops) {
+    EffectiveProfile profile;
+    try {
+      profile = crops.effective(b.crop(), b.variety());
+    } catch (BadInputException e) {
+      String where = (b.variety() != null && crops.crop(b.crop()).isPresent() ? b.varietyRef() : b.cropRef()).toString();
+      throw new BadInputException(where + ": block " + b.id() + ": " + e.getMessage(), e);
+    }
+    EffectiveStage stage = profile.stage(b.stage()).orElseThrow(() -> new BadInputException(
+        b.stageRef() + ": block " + b.id() + ": stage '" + b.stage() + "' is not a stage of "
+            + profile.label() + "; known stages: "
+            + String.join(", ", profile.stages().stream().map(EffectiveStage::id).toList())));
+    var sprinklers = b.sprinklers();
+    var covers = b.covers();
+    return new BlockFact(b.id(), b.crop(), b.variety(), stage.id(), stage.name(), isBloom(stage),
+        b.areaHa(), stage.t10C(), stage.t90C(), stage.source(), b.coldAirOffsetC(),
+        b.cropValuePerHa().orElse(Double.NaN), sprinklers.isPresent(),
+        sprinklers.map(s -> s.rateMmH()).orElse(0.0), sprinklers.map(s -> s.sourceId()).orElse(null),
+        covers.isPresent(), covers.map(c -> c.protectionC()).orElse(0.0),
+        covers.map(c -> c.protectionSource()).orElse(null), covers.map(c -> c.deployHours()).orElse(0.0));
+  }
+
+  /** Open flowers: a stage named for bloom, or BBCH principal stage 6 (flowering). */
+  static boolean isBloom(EffectiveStage s) {
+    if (s.id().contains("bloom")) {
+      return true;
+    }
+    String digits = s.bbch() == null ? "" : s.bbch().replaceAll("[^0-9].*$", "");
+    return digits.length() == 2 && digits.charAt(0) == '6';
+  }
+
+  static PlanInputs inputsOf(Farm farm, Path forecastFile, Path cropDir, RuleBook book) {
+    List<PlanInputs.Input> files = new ArrayList<>();
+    files.add(new PlanInputs.Input(PlanInputs.Kind.FARM, farm.sourceFile().getFileName().toString(),
+        read(farm.sourceFile())));
+    files.add(new PlanInputs.Input(PlanInputs.Kind.FORECAST, forecastFile.getFileName().toString(),
+        read(forecastFile)));
+    try (Stream<Path> list = Files.list(cropDir)) {
+      for (Path p : list.filter(Files::isRegularFile).sorted().toList()) {
+        files.add(new PlanInputs.Input(PlanInputs.Kind.CROP_PROFILE, p.getFileName().toString(), read(p)));
+      }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    for (RuleBook.RuleFile f : book.files()) {
+      files.add(new PlanInputs.Input(PlanInputs.Kind.RULE, f.name(),
+          f.text().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+    }
+    return new PlanInputs(files);
+  }
+
+  private static byte[] read(Path p) {
+    try {
+      return Files.readAllBytes(p);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+}

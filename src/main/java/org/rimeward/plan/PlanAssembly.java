@@ -1,0 +1,108 @@
+package org.rimeward.plan;
+
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.rimeward.BuildInfo;
+import org.rimeward.farm.Block;
+import org.rimeward.farm.Farm;
+import org.rimeward.farm.WaterSource;
+import org.rimeward.rules.FiredRule;
+import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.facts.BlockFact;
+import org.rimeward.rules.facts.BlockNight;
+import org.rimeward.rules.facts.BlockStatus;
+import org.rimeward.rules.facts.CoverPlan;
+import org.rimeward.rules.facts.NightFact;
+import org.rimeward.rules.facts.Risk;
+import org.rimeward.rules.facts.RiskLevel;
+import org.rimeward.rules.facts.SprinklePlan;
+import org.rimeward.rules.facts.SprinkleStart;
+import org.rimeward.rules.facts.Target;
+import org.rimeward.rules.facts.WaterBalance;
+import org.rimeward.rules.facts.WithoutWater;
+import org.rimeward.weather.Forecast;
+import org.rimeward.weather.ForecastStep;
+
+/** Turns what the rules concluded into the plan a manager reads. */
+final class PlanAssembly {
+  private PlanAssembly() {}
+
+  static Plan assemble(Farm farm, Forecast forecast, NightFact night, List<ForecastStep> window,
+      Map<String, BlockFact> blockFacts, Map<String, BlockNight> nights, RuleBook.Outcome outcome,
+      PlanInputs inputs) {
+    List<Risk> risks = outcome.all(Risk.class);
+    List<BlockStatus> statuses = outcome.all(BlockStatus.class);
+    List<Target> targets = outcome.all(Target.class);
+    List<CoverPlan> covers = outcome.all(CoverPlan.class);
+    List<SprinklePlan> sprinkles = outcome.all(SprinklePlan.class);
+    List<SprinkleStart> starts = outcome.all(SprinkleStart.class);
+    List<WithoutWater> without = outcome.all(WithoutWater.class);
+    List<FiredRule> trail = outcome.trail();
+
+    List<BlockPlan> blocks = new ArrayList<>();
+    for (Block b : farm.blocks()) {
+      String id = b.id();
+      BlockFact bf = blockFacts.get(id);
+      BlockNight bn = nights.get(id);
+      List<Action> actions = new ArrayList<>();
+      first(covers, CoverPlan::blockId, id).ifPresent(c -> actions.add(new Action.Cover(
+          c.deployStart(), c.deployBy(), c.remove(), c.protectionC(), c.sufficient())));
+      first(sprinkles, SprinklePlan::blockId, id).ifPresent(s -> actions.add(new Action.Sprinkle(
+          s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(), s.waterM3(), s.flowM3H(),
+          s.sourceId(),
+          first(starts, SprinkleStart::blockId, id).map(SprinkleStart::atOnce).orElse(false),
+          first(without, WithoutWater::blockId, id).isEmpty())));
+      List<FiredRule> rules = trail.stream().filter(f -> id.equals(f.blockId())).toList();
+      blocks.add(new BlockPlan(id, bf.crop(), bf.variety(), bf.stage(), bf.stageName(), bf.t10C(),
+          bf.t90C(), bf.thresholdSource(),
+          first(targets, Target::blockId, id).map(Target::targetC).orElse(bf.t10C()),
+          bn.minAirC(), bn.minDryBudC(), bn.minWetBulbC(), bn.coldestAt(), bn.coldestLine(),
+          first(risks, Risk::blockId, id).map(Risk::level).orElse(RiskLevel.NONE),
+          bn.killPctUnprotected(),
+          first(statuses, BlockStatus::blockId, id).map(BlockStatus::status).orElseThrow(
+              () -> new IllegalStateException("no status rule fired for block " + id
+                  + "; every block needs one STATUS rule")),
+          actions, rules.stream().filter(FiredRule::isCaution).toList(), rules));
+    }
+    blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
+        .thenComparing(BlockPlan::blockId));
+
+    List<WaterBalance> balances = outcome.all(WaterBalance.class);
+    List<WaterEntry> water = new ArrayList<>();
+    for (WaterSource w : farm.waterSources()) {
+      double available = w.volumeM3().orElse(Double.NaN);
+      water.add(first(balances, WaterBalance::sourceId, w.id())
+          .map(wb -> new WaterEntry(w.id(), wb.peakFlowM3H(), w.maxFlowM3H(), wb.volumeM3(),
+              available, wb.shortOfWater(), wb.allocation().served(), wb.allocation().dropped()))
+          .orElse(new WaterEntry(w.id(), 0, w.maxFlowM3H(), 0, available, false, List.of(), List.of())));
+    }
+    water.sort(Comparator.comparing(WaterEntry::source));
+
+    List<String> cautions = new ArrayList<>(StandingCautions.ALL);
+    trail.stream().filter(f -> f.isCaution() && f.blockId() == null)
+        .forEach(f -> cautions.add(f.explanation()));
+
+    int coldest = 0;
+    for (int i = 1; i < window.size(); i++) {
+      if (window.get(i).airTempC() < window.get(coldest).airTempC()) {
+        coldest = i;
+      }
+    }
+    NightSummary summary = new NightSummary(night.date(), night.zone(), night.sunset(),
+        night.sunrise(), window.get(coldest).time(), window.get(coldest).airTempC(),
+        forecast.start(), forecast.end());
+    PlanPolicy policy = new PlanPolicy(farm.policy().target().toString(),
+        farm.policy().startMarginC(), farm.policy().stopRule().yamlName());
+    return new Plan(farm.name(), BuildInfo.version(), summary, policy, blocks, water, cautions,
+        trail, inputs);
+  }
+
+  private static <T> Optional<T> first(List<T> items, java.util.function.Function<T, String> id,
+      String wanted) {
+    return items.stream().filter(i -> wanted.equals(id.apply(i))).findFirst();
+  }
+}
