@@ -91,7 +91,7 @@ public final class FarmLoader {
     Section top = section(root, "the farm file", "farm, forecast, policy, water_sources and blocks sections");
     top.allow("farm", "forecast", "policy", "water_sources", "blocks");
 
-    Section farm = section(top.required("farm", "the farm's name, latitude, longitude, elevation and timezone").value(), "farm", "name, latitude, ...");
+    Section farm = top.map(top.required("farm", "the farm's name, latitude, longitude, elevation and timezone"));
     farm.allow("name", "latitude", "longitude", "elevation", "timezone");
     String name = farm.text(farm.required("name", "e.g. name: Hillside Orchard"));
     double latitude = degrees(farm, "latitude", 90, "north positive, e.g. 46.21 (or -33.9 south of the equator)");
@@ -221,10 +221,10 @@ public final class FarmLoader {
     Map<String, Integer> lines = new HashMap<>();
     for (int i = 0; i < list.items().size(); i++) {
       Section s = section(list.items().get(i), "water_sources item " + (i + 1), "id, max_flow and volume");
-      s.allow("id", "max_flow", "volume");
       Entry idEntry = s.required("id", "a short name blocks refer to, e.g. id: pond");
       String id = id(s, idEntry);
       s = s.renamed("water_sources[" + id + "]");
+      s.allow("id", "max_flow", "volume");
       Integer previous = lines.putIfAbsent(id, idEntry.keyLine());
       if (previous != null) {
         throw s.bad(idEntry, "'" + id + "' is already the id of the water source on line " + previous
@@ -253,11 +253,11 @@ public final class FarmLoader {
 
   private Block block(Node item, int index, Map<String, WaterSource> sources) {
     Section s = section(item, "blocks item " + index, "id, crop, stage and area");
-    s.allow("id", "crop", "variety", "stage", "area", "cold_air_offset", "crop_value", "sprinklers", "covers");
     Map<String, SourceRef> refs = new HashMap<>();
     Entry idEntry = s.required("id", "a short name for the block, e.g. id: north-gala");
     String id = id(s, idEntry);
     s = s.renamed("blocks[" + id + "]");
+    s.allow("id", "crop", "variety", "stage", "area", "cold_air_offset", "crop_value", "sprinklers", "covers");
     refs.put("id", ref(idEntry));
     Section b = s;
 
@@ -449,7 +449,7 @@ public final class FarmLoader {
       return "a list";
     }
     Scalar s = (Scalar) n;
-    return s.isNull() ? "nothing" : "'" + s.text() + "'";
+    return s.isNull() || s.text().isBlank() ? "nothing" : "'" + s.text() + "'";
   }
 
   /** A map in the file with its dotted path, for messages. */
