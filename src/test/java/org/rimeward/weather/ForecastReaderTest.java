@@ -182,7 +182,7 @@ class ForecastReaderTest {
   }
 
   @Test
-  void coverageAndGapHelpers() throws IOException {
+  void coverageAndLongestGap() throws IOException {
     Path p = csv("""
         time,air_temp_c,dew_point_c,wind_ms,cloud_pct
         2024-04-12T20:00Z,5,0,1,0
