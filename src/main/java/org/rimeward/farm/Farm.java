@@ -1,0 +1,122 @@
+package org.rimeward.farm;
+
+import java.nio.file.Path;
+import java.time.ZoneId;
+import java.time.ZoneOffset;
+import java.util.Collections;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * A farm as read from its farm.yaml: where it is, its protection policy, its water and its blocks
+ * (in file order).
+ *
+ * @param name the farm's name
+ * @param latitude degrees north (negative south), −90 to 90
+ * @param longitude degrees east (negative west), −180 to 180
+ * @param elevationM elevation above sea level, m
+ * @param zone the farm's IANA time zone, used for local times in the forecast and the report
+ * @param folder the farm folder (the one holding farm.yaml)
+ * @param forecastFile the forecast CSV the farm names, resolved against the folder
+ * @param policy how protection is decided
+ * @param waterSources water sources in file order
+ * @param blocks blocks in file order
+ * @param origin the farm file (line 1), for messages and the audit
+ */
+public record Farm(
+    String name,
+    double latitude,
+    double longitude,
+    double elevationM,
+    ZoneId zone,
+    Path folder,
+    Path forecastFile,
+    Policy policy,
+    List<WaterSource> waterSources,
+    List<Block> blocks,
+    SourceRef origin) {
+
+  /** Elevations accepted, m: from the lowest farmland (Dead Sea shore, about −430 m) to 6000 m. */
+  public static final double MIN_ELEVATION_M = -500;
+  public static final double MAX_ELEVATION_M = 6000;
+
+  public Farm {
+    if (name == null || name.isBlank()) {
+      throw new IllegalArgumentException("farm name is required");
+    }
+    if (!(latitude >= -90 && latitude <= 90)) {
+      throw new IllegalArgumentException("latitude " + latitude + " is outside -90 to 90");
+    }
+    if (!(longitude >= -180 && longitude <= 180)) {
+      throw new IllegalArgumentException("longitude " + longitude + " is outside -180 to 180");
+    }
+    if (!(elevationM >= MIN_ELEVATION_M && elevationM <= MAX_ELEVATION_M)) {
+      throw new IllegalArgumentException(String.format(Locale.ROOT,
+          "elevation %s m is outside %.0f to %.0f m", elevationM, MIN_ELEVATION_M, MAX_ELEVATION_M));
+    }
+    Objects.requireNonNull(zone, "zone");
+    if (zone instanceof ZoneOffset) {
+      throw new IllegalArgumentException("time zone must be a named zone, not the fixed offset " + zone);
+    }
+    Objects.requireNonNull(folder, "folder");
+    Objects.requireNonNull(forecastFile, "forecastFile");
+    Objects.requireNonNull(policy, "policy");
+    Objects.requireNonNull(origin, "origin");
+    waterSources = List.copyOf(waterSources);
+    blocks = List.copyOf(blocks);
+    if (blocks.isEmpty()) {
+      throw new IllegalArgumentException("farm " + name + " has no blocks");
+    }
+    Set<String> sourceIds = new HashSet<>();
+    for (WaterSource s : waterSources) {
+      if (!sourceIds.add(s.id())) {
+        throw new IllegalArgumentException("water source id " + s.id() + " is used twice");
+      }
+    }
+    Set<String> blockIds = new HashSet<>();
+    for (Block b : blocks) {
+      if (!blockIds.add(b.id())) {
+        throw new IllegalArgumentException("block id " + b.id() + " is used twice");
+      }
+      b.sprinklers().ifPresent(s -> {
+        if (!sourceIds.contains(s.sourceId())) {
+          throw new IllegalArgumentException("block " + b.id() + " draws on water source "
+              + s.sourceId() + ", which the farm does not have");
+        }
+      });
+    }
+  }
+
+  /** The farm file itself, for the audit (its bytes can be read from here). */
+  public Path sourceFile() {
+    return Path.of(origin.file());
+  }
+
+  public Optional<Block> block(String id) {
+    return blocks.stream().filter(b -> b.id().equals(id)).findFirst();
+  }
+
+  public Optional<WaterSource> waterSource(String id) {
+    return waterSources.stream().filter(s -> s.id().equals(id)).findFirst();
+  }
+
+  /** Blocks whose sprinklers draw on {@code sourceId}, in file order. */
+  public List<Block> blocksOn(String sourceId) {
+    return blocks.stream()
+        .filter(b -> b.sprinklers().map(s -> s.sourceId().equals(sourceId)).orElse(false))
+        .toList();
+  }
+
+  /** Blocks by id, iterating in file order. */
+  public Map<String, Block> blocksById() {
+    Map<String, Block> m = new LinkedHashMap<>();
+    blocks.forEach(b -> m.put(b.id(), b));
+    return Collections.unmodifiableMap(m);
+  }
+}
