@@ -10,7 +10,10 @@ package org.rimeward.physics;
  * surroundings at air temperature over the lower half. h is the wind-convection coefficient
  * h = 5.7 + 3.8 u of McAdams (1954, after Jürges), as given by Duffie &amp; Beckman, for 0…5 m/s:
  * sprinkling is not advised above about 4.5 m/s (10 mph; Virginia Tech tree-fruit guidance), so the
- * method stops at 5 m/s rather than extrapolate. The loss is met by the latent heat of freezing
+ * method stops at 5 m/s rather than extrapolate. The wind inside a sprinkled canopy is taken as
+ * {@link #CANOPY_WIND_RATIO} = 0.5 of the open 2 m wind, the mid-canopy value of an exponential
+ * in-canopy wind profile (Cionco 1965, attenuation coefficient about 1.4; from memory). The sky is
+ * taken as clear (a radiation frost): the worst case. The loss is met by the latent heat of freezing
  * (0.334 MJ/kg) plus the sensible heat of the water from its supply temperature to 0 °C.
  *
  * <p>Not all applied water freezes on the buds (drift, runoff, water landing on the ground) and a
@@ -20,7 +23,10 @@ package org.rimeward.physics;
  * 2 m/s, the results fall inside the published rules of thumb: 0.12–0.15 in/h (3.0–3.8 mm/h)
  * protects to about 22 °F (−5.6 °C) with no wind and 24–25 °F (−4.4 to −3.9 °C) with a light wind
  * (Longstroth 2012, MSU Extension), and 70–80 gpm/acre (3.9–4.5 mm/h) protects trees to about
- * 24 °F (−4.4 °C) (R. G. Evans in Good Fruit Grower, "Frost control options").
+ * 24 °F (−4.4 °C) (R. G. Evans in Good Fruit Grower, "Frost control options"), here at a breezy
+ * 3.5 m/s since that article names no wind. The pair of MSU figures limits how fast the need may
+ * rise between 0.5 and 2 m/s; with this convection law the need at 4.5 m/s is about 1.5 times the
+ * calm need, gentler than older wind tables (UF/IFAS Circ. 287, not verified here).
  */
 public final class SprinklerBalance {
   /** Ground-area rate per unit of iced-surface water need: exchange area over freezing efficiency. */
