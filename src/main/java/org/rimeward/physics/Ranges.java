@@ -30,6 +30,10 @@ final class Ranges {
   }
 
   static String fmt(double v) {
-    return Double.isNaN(v) ? "NaN" : String.format(Locale.ROOT, "%.4g", v);
+    if (!Double.isFinite(v)) {
+      return Double.toString(v);
+    }
+    // Four significant digits, without the trailing zeros that make "2" read as "2.000".
+    return new java.math.BigDecimal(v).round(new java.math.MathContext(4)).stripTrailingZeros().toPlainString();
   }
 }

@@ -59,6 +59,11 @@ public final class SprinklerBalance {
     Ranges.check("air temperature", airTempC, -15, 5, "°C");
     Ranges.check("dew point", dewPointC, -40, 50, "°C");
     Ranges.checkDewPoint(airTempC, dewPointC);
+    if (windMs > 5) {
+      throw new OutOfRangeException("wind speed at 2 m " + Ranges.fmt(windMs) + " m/s is above the"
+          + " 5 m/s this sprinkler balance is valid for; over-plant sprinkling is not advised above"
+          + " about 4.5 m/s (10 mph), so plan another method for this wind");
+    }
     Ranges.check("wind speed at 2 m", windMs, 0, 5, "m/s");
     Ranges.check("water temperature", waterTempC, 0, 30, "°C");
     Ranges.check("pressure", pressureKPa, 50, 110, "kPa");
