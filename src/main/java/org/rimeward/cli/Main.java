@@ -5,6 +5,7 @@ import java.util.logging.Level;
 import java.util.logging.LogManager;
 import java.util.logging.Logger;
 import org.rimeward.io.BadInputException;
+import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.units.QuantityException;
 import picocli.CommandLine;
 import picocli.CommandLine.ParseResult;
@@ -63,7 +64,8 @@ public final class Main {
 
   private static Throwable rootInput(Throwable ex) {
     for (Throwable t = ex; t != null; t = t.getCause()) {
-      if (t instanceof BadInputException || t instanceof QuantityException) {
+      if (t instanceof BadInputException || t instanceof QuantityException
+          || t instanceof OutOfRangeException) {
         return t;
       }
     }
