@@ -174,6 +174,15 @@ public final class ProfileEditor {
         throw BadInputException.at(f.file + ":" + existing.line(), "the " + variety + " override of '"
             + stage + "' gives a single tolerance; change the tolerance in the file by hand");
       }
+      // A new note must not wipe the earlier observation behind the override; keep it after the
+      // new one, with who set it and when.
+      if (existing.get("note") instanceof Scalar old && !old.isNull() && !old.text().isBlank()) {
+        String who = existing.get("set_by") instanceof Scalar b && !b.isNull() ? b.text() : null;
+        String when = existing.get("set_on") instanceof Scalar d && !d.isNull() ? d.text() : null;
+        String earlier = who == null && when == null ? "" : " (" + (who == null ? "" : who)
+            + (who != null && when != null ? ", " : "") + (when == null ? "" : when) + ")";
+        fields.put("note", quote(note.strip() + "; earlier" + earlier + ": " + old.text().strip()));
+      }
       edited = setKeys(f, existing, fields, nl);
     } else {
       Map<String, String> item = new LinkedHashMap<>();
