@@ -1,0 +1,72 @@
+package org.rimeward.cli;
+
+import java.io.PrintWriter;
+import java.time.Clock;
+import java.util.List;
+import org.rimeward.crop.ProfileEdit;
+import org.rimeward.crop.ProfileEditor;
+import org.rimeward.io.BadInputException;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(name = "new-variety", mixinStandardHelpOptions = true,
+    versionProvider = RimewardCommand.Version.class,
+    description = "Add a variety to a crop file. It inherits the crop's stages; --offset makes it"
+        + " uniformly hardier (positive) or more tender (negative).")
+final class ProfileNewVarietyCommand implements Runnable {
+  @Spec CommandSpec spec;
+  @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
+
+  @Parameters(index = "0", paramLabel = "CROP/VARIETY", description = "e.g. apple/honeycrisp")
+  String target;
+
+  @Option(names = "--from", paramLabel = "CROP/OTHER",
+      description = "Copy the offset and overrides of this variety of the same crop.")
+  String from;
+
+  @Option(names = "--offset", paramLabel = "DELTA",
+      description = "Hardiness offset, e.g. 0.5C or 1F (bare numbers in --units).")
+  String offset;
+
+  @Option(names = "--name", description = "Display name (default: the id).")
+  String name;
+
+  @Option(names = "--note", required = true,
+      description = "Who observed what, and when; kept in the file.")
+  String note;
+
+  @Option(names = "--by", paramLabel = "NAME", description = "Who makes the change (default: login name).")
+  String by = System.getProperty("user.name", "unknown");
+
+  @Override
+  public void run() {
+    String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
+    if (cv[1] == null) {
+      throw new BadInputException("CROP/VARIETY: '" + target + "' names no variety; write it as"
+          + " CROP/VARIETY, for example apple/honeycrisp");
+    }
+    String fromVariety = null;
+    if (from != null) {
+      String[] fv = ProfileCommand.cropAndVariety(from, "--from");
+      if (!fv[0].equals(cv[0]) || fv[1] == null) {
+        throw new BadInputException("--from: '" + from + "' must be a variety of the same crop, e.g. "
+            + cv[0] + "/OTHER; stages differ between crops");
+      }
+      fromVariety = fv[1];
+    }
+    ProfileEditor editor = new ProfileEditor(folder.resolve(), Clock.systemDefaultZone());
+    ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromVariety, offset,
+        ProfileCommand.units(spec), note, by);
+    PrintWriter out = spec.commandLine().getOut();
+    out.println("Added variety " + cv[0] + "/" + cv[1] + " to " + edit.file()
+        + (edit.afterC() == null ? " (no hardiness offset)"
+            : String.format(java.util.Locale.ROOT, " (hardiness offset %.2f °C, %.1f °F)",
+                edit.afterC(), edit.afterC() * 1.8)));
+    ProfileCommand.recorded(List.of(edit), out);
+    out.flush();
+  }
+}

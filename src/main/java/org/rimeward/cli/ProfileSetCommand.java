@@ -1,0 +1,57 @@
+package org.rimeward.cli;
+
+import java.io.PrintWriter;
+import java.time.Clock;
+import java.util.List;
+import org.rimeward.crop.ProfileEdit;
+import org.rimeward.crop.ProfileEditor;
+import org.rimeward.units.UnitSystem;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(name = "set", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+    description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.")
+final class ProfileSetCommand implements Runnable {
+  @Spec CommandSpec spec;
+  @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
+
+  @Parameters(index = "0", paramLabel = "CROP/VARIETY", description = "e.g. apple/golden-delicious")
+  String target;
+
+  @Option(names = "--stage", required = true, description = "Stage id, e.g. full-bloom.")
+  String stage;
+
+  @Option(names = "--t10", paramLabel = "TEMP",
+      description = "New 10% kill temperature, e.g. -2.8C or 27F (bare: °C, or °F with --units us).")
+  String t10;
+
+  @Option(names = "--t90", paramLabel = "TEMP", description = "New 90% kill temperature.")
+  String t90;
+
+  @Option(names = "--note", required = true,
+      description = "Who observed what, and when; kept in the file.")
+  String note;
+
+  @Option(names = "--by", paramLabel = "NAME", description = "Who makes the change (default: login name).")
+  String by = System.getProperty("user.name", "unknown");
+
+  @Override
+  public void run() {
+    String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
+    UnitSystem units = ProfileCommand.units(spec);
+    ProfileEditor editor = new ProfileEditor(folder.resolve(), Clock.systemDefaultZone());
+    List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, note, by);
+    PrintWriter out = spec.commandLine().getOut();
+    for (ProfileEdit e : edits) {
+      out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
+          + ProfileCommand.temp(e.beforeC(), units) + ", after " + ProfileCommand.temp(e.afterC(), units));
+    }
+    out.println("Written to " + edits.get(0).file());
+    ProfileCommand.recorded(edits, out);
+    out.flush();
+  }
+}
