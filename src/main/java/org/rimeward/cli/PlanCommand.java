@@ -1,17 +1,66 @@
 package org.rimeward.cli;
 
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.concurrent.Callable;
+import org.rimeward.plan.NightPlanner;
+import org.rimeward.plan.Plan;
+import org.rimeward.plan.PlanCsv;
+import org.rimeward.plan.PlanJson;
+import org.rimeward.plan.PlanRequest;
+import org.rimeward.plan.PlanText;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.ParameterException;
-import picocli.CommandLine.Spec;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParentCommand;
 
 @Command(name = "plan", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
-    description = "TODO")
-final class PlanCommand implements Runnable {
-  @Spec CommandSpec spec;
+    description = {"The nightly decision run: for every block, whether tonight's freeze threatens"
+        + " its buds, when to start and stop sprinkling, when covers go on and come off, and"
+        + " whether the water sources carry it all, with the rules that led there."},
+    footer = {"", "Exit codes: 0 a plan was made (whatever it recommends); 2 bad input;"
+        + " 3 with --exit-code-on-action when a block needs protection; 1 internal error.",
+        "", Cautions.HELP_FOOTER})
+final class PlanCommand implements Callable<Integer> {
+  enum Format { TEXT, JSON, CSV }
+
+  @ParentCommand RimewardCommand root;
+  @Mixin DataFolders folders;
+
+  @Option(names = "--farm", paramLabel = "DIR", defaultValue = "demo-farm",
+      description = "Farm folder holding farm.yaml and the forecast (default: ${DEFAULT-VALUE}).")
+  Path farm;
+
+  @Option(names = "--forecast", paramLabel = "FILE",
+      description = "Forecast CSV to use instead of the one the farm file names.")
+  Path forecast;
+
+  @Option(names = "--night", paramLabel = "YYYY-MM-DD",
+      description = "Date of the evening to plan (default: from the forecast's first step).")
+  LocalDate night;
+
+  @Option(names = "--format", paramLabel = "text|json|csv", defaultValue = "text",
+      description = "Output format (default: ${DEFAULT-VALUE}). JSON and CSV are always metric.")
+  Format format;
+
+  @Option(names = "--explain", description = "Add every rule that fired, with its numbers.")
+  boolean explain;
+
+  @Option(names = "--exit-code-on-action",
+      description = "Exit 3 when any block needs protection, for a scheduled job that alerts.")
+  boolean exitCodeOnAction;
 
   @Override
-  public void run() {
-    throw new ParameterException(spec.commandLine(), "a subcommand is required");
+  public Integer call() {
+    Plan plan = new NightPlanner().plan(new PlanRequest(farm, forecast, folders.cropProfiles(),
+        folders.rules(), night));
+    var out = root.spec.commandLine().getOut();
+    switch (format) {
+      case JSON -> out.print(PlanJson.toText(plan));
+      case CSV -> out.print(PlanCsv.render(plan));
+      default -> out.print(PlanText.render(plan, root.global.units(), explain));
+    }
+    out.flush();
+    return exitCodeOnAction && plan.actionNeeded() ? Main.ACTION_NEEDED : Main.OK;
   }
 }

@@ -26,6 +26,9 @@ final class BlockPhysics {
    */
   static final double NO_ICE_NEEDED_ABOVE_C = 5.0;
 
+  /** The sprinkler balance holds up to this wind at 2 m; extension guidance stops at 4.5 m/s. */
+  static final double SPRINKLING_WIND_LIMIT_MS = 5.0;
+
   /** Supply water temperature when the farm file gives none: pond water on a spring night. */
   static final double DEFAULT_WATER_TEMP_C = 5.0;
 
@@ -53,8 +56,15 @@ final class BlockPhysics {
         double wind2m = Wind.at2mMs(s.windMs(), s.windHeightM());
         double wetBulb = Psychrometrics.wetBulbC(air, dew, pressureKPa);
         BudTemperature bud = BudTemperature.estimate(air, dew, wind2m, s.cloudPct());
-        double rate = air > NO_ICE_NEEDED_ABOVE_C ? 0.0
-            : SprinklerBalance.requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa);
+        double rate;
+        if (air > NO_ICE_NEEDED_ABOVE_C) {
+          rate = 0.0;
+        } else if (wind2m > SPRINKLING_WIND_LIMIT_MS) {
+          // Beyond the balance's validity: no rate holds iced buds at 0 °C in such wind.
+          rate = Double.POSITIVE_INFINITY;
+        } else {
+          rate = SprinklerBalance.requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa);
+        }
         v.get(Measure.AIR_C)[i] = air;
         v.get(Measure.WET_BULB_C)[i] = wetBulb;
         v.get(Measure.DRY_BUD_C)[i] = air - bud.depressionC();

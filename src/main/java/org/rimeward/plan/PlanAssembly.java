@@ -62,7 +62,7 @@ final class PlanAssembly {
           first(targets, Target::blockId, id).map(Target::targetC).orElse(bf.t10C()),
           bn.minAirC(), bn.minDryBudC(), bn.minWetBulbC(), bn.coldestAt(), bn.coldestLine(),
           first(risks, Risk::blockId, id).map(Risk::level).orElse(RiskLevel.NONE),
-          bn.killPctUnprotected(),
+          bn.unprotectedKillPct(),
           first(statuses, BlockStatus::blockId, id).map(BlockStatus::status).orElseThrow(
               () -> new IllegalStateException("no status rule fired for block " + id
                   + "; every block needs one STATUS rule")),

@@ -85,6 +85,9 @@ public final class Explanations {
       if (Double.isNaN(d)) {
         return "no limit";
       }
+      if (Double.isInfinite(d)) {
+        return "more than any sprinkler can give";
+      }
       Dimension dim = dimensionOf(name);
       if (dim == null) {
         return n instanceof Integer || n instanceof Long ? n.toString()

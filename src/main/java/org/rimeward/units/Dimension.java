@@ -26,7 +26,7 @@ public enum Dimension {
   AREA("ha", "4.5 ha or 11 ac",
       unit(1, 0, "ha"), unit(0.40468564224, 0, "ac", "acre", "acres"), unit(1e-4, 0, "m2", "m²")),
   FLOW("m3/h", "450 m3/h, 125 L/s or 600 gpm",
-      unit(1, 0, "m3/h", "m³/h"), unit(3.6, 0, "l/s"), unit(0.003785411784 * 60, 0, "gpm")),
+      unit(1, 0, "m3/h", "m³/h"), unit(0.003785411784 * 60, 0, "gpm"), unit(3.6, 0, "l/s")),
   VOLUME("m3", "9000 m3, 2.4 acre-ft or 500000 gal",
       unit(1, 0, "m3", "m³"), unit(0.003785411784, 0, "gal"),
       unit(1233.48183754752, 0, "acre-ft", "af"), unit(1000, 0, "ml")),

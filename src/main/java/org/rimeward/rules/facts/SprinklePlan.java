@@ -22,7 +22,7 @@ public record SprinklePlan(String blockId, String sourceId, Instant start, Insta
     double flow = b.installedRateMmH() * b.areaHa() * 10.0;
     double required = n.series().max(Measure.REQUIRED_RATE_MM_H, start, stop);
     return new SprinklePlan(b.blockId(), b.sourceId(), start, stop, required,
-        b.installedRateMmH(), flow, flow * hours, n.killPctUnprotected(), b.areaHa(),
+        b.installedRateMmH(), flow, flow * hours, n.unprotectedKillPct(), b.areaHa(),
         b.cropValuePerHa());
   }
 
