@@ -300,7 +300,17 @@ public final class AuditStore implements AutoCloseable {
    * together is only seen against a head hash kept elsewhere ({@link VerifyResult#headHash()}).
    */
   public synchronized VerifyResult verify() {
-    return read("verify it", () -> new Verifier().run());
+    return read("verify it", () -> {
+      // One read transaction: the walk sees one snapshot even while another program appends.
+      try (Statement st = conn.createStatement()) {
+        st.execute("BEGIN DEFERRED");
+        try {
+          return new Verifier().run();
+        } finally {
+          st.execute("COMMIT");
+        }
+      }
+    });
   }
 
   @Override
