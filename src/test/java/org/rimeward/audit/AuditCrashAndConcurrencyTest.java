@@ -24,17 +24,20 @@ class AuditCrashAndConcurrencyTest {
   @TempDir Path dir;
 
   /** A started writer program and the runs it reported committed. */
-  record Child(Process process, List<String> committed, CountDownLatch ready, Thread reader) {}
+  record Child(Process process, List<String> committed, CountDownLatch ready,
+      CountDownLatch firstCommit, Thread reader) {}
 
   static Child start(Path db, long seed, int maxRuns, String tag) throws Exception {
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
-    ProcessBuilder pb = new ProcessBuilder(java, "-XX:TieredStopAtLevel=1", "-Xshare:auto",
-        "-cp", System.getProperty("java.class.path"), AuditWriterChild.class.getName(),
+    // Quick-starting flags: fifty of these programs are started and killed.
+    ProcessBuilder pb = new ProcessBuilder(java, "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC",
+        "-XX:-UsePerfData", "-cp", System.getProperty("java.class.path"), AuditWriterChild.class.getName(),
         db.toString(), Long.toString(seed), Integer.toString(maxRuns), tag);
     pb.redirectError(ProcessBuilder.Redirect.INHERIT);
     Process p = pb.start();
     List<String> committed = new CopyOnWriteArrayList<>();
     CountDownLatch ready = new CountDownLatch(1);
+    CountDownLatch firstCommit = new CountDownLatch(1);
     Thread reader = new Thread(() -> {
       try (BufferedReader r = new BufferedReader(
           new InputStreamReader(p.getInputStream(), StandardCharsets.UTF_8))) {
@@ -43,6 +46,7 @@ class AuditCrashAndConcurrencyTest {
             ready.countDown();
           } else if (line.startsWith("ok ")) {
             committed.add(line.substring(3));
+            firstCommit.countDown();
           }
         }
       } catch (java.io.IOException e) {
@@ -50,7 +54,7 @@ class AuditCrashAndConcurrencyTest {
       }
     });
     reader.start();
-    return new Child(p, committed, ready, reader);
+    return new Child(p, committed, ready, firstCommit, reader);
   }
 
   @Test
@@ -61,8 +65,9 @@ class AuditCrashAndConcurrencyTest {
     int kills = 50;
     for (int k = 0; k < kills; k++) {
       Child child = start(db, random.nextLong(), 0, "kill" + k);
-      assertThat(child.ready().await(60, TimeUnit.SECONDS)).as("child %d started", k).isTrue();
-      Thread.sleep(random.nextInt(200));
+      // Killed at a random moment once it is writing: mostly inside a run's transaction.
+      assertThat(child.firstCommit().await(60, TimeUnit.SECONDS)).as("child %d writes", k).isTrue();
+      Thread.sleep(random.nextInt(120));
       child.process().destroyForcibly();
       assertThat(child.process().waitFor(30, TimeUnit.SECONDS)).isTrue();
       child.reader().join(10_000);
@@ -88,7 +93,7 @@ class AuditCrashAndConcurrencyTest {
       // A run reported committed is never lost; one killed mid-write leaves no trace.
       assertThat(present).containsAll(acknowledged);
       assertThat(present.size() - acknowledged.size()).isBetween(0, kills);
-      assertThat(acknowledged).as("the kills must fall among writes").hasSizeGreaterThan(kills);
+      assertThat(acknowledged.size()).as("runs acknowledged").isGreaterThanOrEqualTo(kills);
       assertThat(store.verify().recordCount())
           .isEqualTo(runs.size() * (1L + AuditWriterChild.INPUTS + AuditWriterChild.BLOCKS
               * (1L + AuditWriterChild.RULES_PER_BLOCK)));

@@ -11,7 +11,7 @@ import java.util.Random;
  */
 public final class AuditWriterChild {
   static final int INPUTS = 3;
-  static final int INPUT_BYTES = 48 * 1024;
+  static final int INPUT_BYTES = 32 * 1024;
   static final int BLOCKS = 4;
   static final int RULES_PER_BLOCK = 3;
 
