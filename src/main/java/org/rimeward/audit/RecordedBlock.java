@@ -1,0 +1,33 @@
+package org.rimeward.audit;
+
+import java.util.List;
+import java.util.Objects;
+
+/**
+ * The decision for one block in one run, with the rules that led to it in firing order.
+ *
+ * @param status {@code not-needed}, {@code protected}, {@code short-of-water} or
+ *     {@code unprotected}, as in the plan
+ * @param decisionJson the block's entry of the plan, or the planner's decision object, as JSON
+ */
+public record RecordedBlock(String blockId, String status, String risk, boolean protectionNeeded,
+    String decisionJson, List<RecordedRule> rules) {
+  public RecordedBlock {
+    if (blockId == null || blockId.isBlank()) {
+      throw new IllegalArgumentException("a recorded block needs its block id");
+    }
+    Objects.requireNonNull(status, "status of block " + blockId);
+    Objects.requireNonNull(risk, "risk of block " + blockId);
+    if (decisionJson == null || decisionJson.isBlank()) {
+      throw new IllegalArgumentException("block " + blockId + ": decisionJson is missing");
+    }
+    rules = List.copyOf(Objects.requireNonNull(rules, "rules of block " + blockId));
+    for (int i = 1; i < rules.size(); i++) {
+      if (rules.get(i).seq() <= rules.get(i - 1).seq()) {
+        throw new IllegalArgumentException("block " + blockId + ": rules must be in firing order,"
+            + " but seq " + rules.get(i).seq() + " (" + rules.get(i).ruleId() + ") follows seq "
+            + rules.get(i - 1).seq());
+      }
+    }
+  }
+}

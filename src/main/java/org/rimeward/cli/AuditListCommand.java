@@ -1,0 +1,82 @@
+package org.rimeward.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.PrintWriter;
+import java.time.LocalDate;
+import java.time.ZoneOffset;
+import java.time.format.DateTimeFormatter;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import org.rimeward.audit.AuditStore;
+import org.rimeward.audit.RunSummary;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+@Command(name = "list", mixinStandardHelpOptions = true,
+    versionProvider = RimewardCommand.Version.class,
+    description = "List recorded runs, newest first: id, time recorded, night, and how many blocks"
+        + " needed protection.")
+final class AuditListCommand implements Callable<Integer> {
+  private static final DateTimeFormatter UTC =
+      DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm:ss", Locale.ROOT).withZone(ZoneOffset.UTC);
+
+  @Spec CommandSpec spec;
+  @Mixin AuditCommand.Location where = new AuditCommand.Location();
+
+  @Option(names = "--since", paramLabel = "DATE",
+      description = "Only runs for this night (YYYY-MM-DD) or later.")
+  LocalDate since;
+
+  @Option(names = "--block", paramLabel = "ID", description = "Only runs that planned this block.")
+  String block;
+
+  @Option(names = "--json", description = "Print JSON instead of a table.")
+  boolean json;
+
+  @Override
+  public Integer call() throws Exception {
+    return AuditCommand.guarded(spec, () -> {
+      List<RunSummary> runs;
+      try (AuditStore store = where.openForReading()) {
+        runs = store.listRuns(Optional.ofNullable(since), Optional.ofNullable(block));
+      }
+      PrintWriter out = spec.commandLine().getOut();
+      if (json) {
+        ObjectMapper m = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+        ArrayNode arr = m.createArrayNode();
+        for (RunSummary r : runs) {
+          ObjectNode n = arr.addObject();
+          n.put("run_id", r.runId());
+          n.put("ran_at", r.ranAt().toString());
+          n.put("night", r.night().toString());
+          n.put("farm", r.farmName());
+          n.put("blocks", r.blockCount());
+          n.put("blocks_needing_protection", r.protectionNeededCount());
+        }
+        out.println(m.writeValueAsString(arr));
+        return Main.OK;
+      }
+      if (runs.isEmpty()) {
+        out.println("no runs recorded in " + where.file()
+            + (since != null || block != null ? " that match the filter" : ""));
+        return Main.OK;
+      }
+      int idWidth = Math.max(3, runs.stream().mapToInt(r -> r.runId().length()).max().orElse(3));
+      String row = "%-" + idWidth + "s  %-19s  %-10s  %s%n";
+      out.printf(Locale.ROOT, row, "RUN", "RECORDED (UTC)", "NIGHT", "PROTECTION NEEDED");
+      for (RunSummary r : runs) {
+        out.printf(Locale.ROOT, row, r.runId(), UTC.format(r.ranAt()), r.night(),
+            r.protectionNeededCount() + " of " + r.blockCount() + " blocks");
+      }
+      return Main.OK;
+    });
+  }
+}
