@@ -16,6 +16,7 @@ import org.rimeward.rules.facts.BlockFact;
 import org.rimeward.rules.facts.BlockNight;
 import org.rimeward.rules.facts.BlockStatus;
 import org.rimeward.rules.facts.CoverPlan;
+import org.rimeward.rules.facts.CoverRemovalDelayed;
 import org.rimeward.rules.facts.NightFact;
 import org.rimeward.rules.facts.Risk;
 import org.rimeward.rules.facts.RiskLevel;
@@ -41,6 +42,7 @@ final class PlanAssembly {
     List<SprinklePlan> sprinkles = outcome.all(SprinklePlan.class);
     List<SprinkleStart> starts = outcome.all(SprinkleStart.class);
     List<WithoutWater> without = outcome.all(WithoutWater.class);
+    List<CoverRemovalDelayed> delayed = outcome.all(CoverRemovalDelayed.class);
     List<FiredRule> trail = outcome.trail();
 
     List<BlockPlan> blocks = new ArrayList<>();
@@ -50,7 +52,9 @@ final class PlanAssembly {
       BlockNight bn = nights.get(id);
       List<Action> actions = new ArrayList<>();
       first(covers, CoverPlan::blockId, id).ifPresent(c -> actions.add(new Action.Cover(
-          c.deployStart(), c.deployBy(), c.remove(), c.protectionC(), c.sufficient())));
+          c.deployStart(), c.deployBy(),
+          first(delayed, CoverRemovalDelayed::blockId, id).map(CoverRemovalDelayed::remove).orElse(c.remove()),
+          c.protectionC(), c.sufficient())));
       first(sprinkles, SprinklePlan::blockId, id).ifPresent(s -> actions.add(new Action.Sprinkle(
           s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(), s.waterM3(), s.flowM3H(),
           s.sourceId(),
