@@ -53,13 +53,21 @@ final class CalcAirCommand implements Runnable {
   @Option(names = "--json", description = "Print one JSON object (always metric).")
   boolean json;
 
+  private static double dewPointFromRh(double airC, double rhPct) {
+    try {
+      return Psychrometrics.dewPointFromRhC(airC, rhPct);
+    } catch (org.rimeward.physics.OutOfRangeException e) {
+      throw new org.rimeward.io.BadInputException("--rh: " + e.getMessage());
+    }
+  }
+
   @Override
   public void run() {
     UnitSystem units = CalcOutput.units(spec);
     double airC = CalcOutput.temperature(temp, "--temp", units);
     double dewC = humidity.dewPoint != null
         ? CalcOutput.temperature(humidity.dewPoint, "--dew-point", units)
-        : Psychrometrics.dewPointFromRhC(airC, Quantities.parse(humidity.rh, Dimension.PERCENT, "--rh", units));
+        : dewPointFromRh(airC, Quantities.parse(humidity.rh, Dimension.PERCENT, "--rh", units));
     double pressureKPa = site == null ? Atmosphere.stationPressureKPa(0)
         : site.pressure != null ? Quantities.parse(site.pressure, Dimension.PRESSURE, "--pressure")
         : Atmosphere.stationPressureKPa(Quantities.parse(site.elevation, Dimension.LENGTH, "--elevation"));

@@ -27,7 +27,9 @@ public final class PlanText {
         .append(" (").append(zone.getId()).append(")\n");
     sb.append("  sunset ").append(day(n.sunset(), zone)).append(", sunrise ").append(day(n.sunrise(), zone))
         .append(", coldest ").append(temp(n.minAirC(), units)).append(" at ").append(day(n.coldestAt(), zone))
-        .append(" (forecast air)\n\n");
+        .append(" (forecast air)\n");
+    sb.append("  Decision support only: check thermometers at bud height in each block, and follow"
+        + " local codes, water rights and licensed practice.\n\n");
 
     List<String[]> rows = new ArrayList<>();
     rows.add(new String[] {"block", "crop / stage", "risk", "coldest bud", "plan", "start", "stop", "water"});
