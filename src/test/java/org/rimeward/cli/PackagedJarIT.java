@@ -14,13 +14,22 @@ class PackagedJarIT {
   record Run(int exit, String out, String err) {}
 
   static Run java(String... args) throws Exception {
-    String jar = System.getProperty("rimeward.jar", "target/rimeward.jar");
+    return javaIn(null, args);
+  }
+
+  static Run javaIn(java.nio.file.Path dir, String... args) throws Exception {
+    String jar = java.nio.file.Path.of(System.getProperty("rimeward.jar", "target/rimeward.jar"))
+        .toAbsolutePath().toString();
     List<String> cmd = new ArrayList<>();
     cmd.add(System.getProperty("java.home") + File.separator + "bin" + File.separator + "java");
     cmd.add("-jar");
     cmd.add(jar);
     cmd.addAll(List.of(args));
-    Process p = new ProcessBuilder(cmd).start();
+    ProcessBuilder pb = new ProcessBuilder(cmd);
+    if (dir != null) {
+      pb.directory(dir.toFile());
+    }
+    Process p = pb.start();
     p.getOutputStream().close();
     byte[] out = p.getInputStream().readAllBytes();
     byte[] err = p.getErrorStream().readAllBytes();
@@ -34,5 +43,29 @@ class PackagedJarIT {
     Run r = java("--version");
     assertThat(r.exit()).isZero();
     assertThat(r.out()).startsWith("rimeward 0.");
+  }
+
+  /**
+   * The main job from the jar alone, in a folder with no rules/ or crop-profiles/: the bundled
+   * copies inside the jar are used, and Drools finds its parts in the merged service files.
+   */
+  @Test
+  void plansTheDemoFarmFromTheJarAlone(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp)
+      throws Exception {
+    java.nio.file.Path farm = tmp.resolve("demo-farm");
+    java.nio.file.Files.createDirectories(farm);
+    for (String f : List.of("farm.yaml", "forecast.csv")) {
+      java.nio.file.Files.copy(java.nio.file.Path.of("demo-farm", f), farm.resolve(f));
+    }
+    Run r = javaIn(tmp, "plan", "--farm", "demo-farm", "--format", "json");
+    assertThat(r.exit()).as(r.err()).isZero();
+    assertThat(r.err()).isEmpty();
+    var root = new com.fasterxml.jackson.databind.ObjectMapper().readTree(r.out());
+    assertThat(root.get("blocks")).hasSizeGreaterThanOrEqualTo(8);
+    assertThat(root.at("/night/date").asText()).isEqualTo("2026-04-14");
+
+    Run bad = javaIn(tmp, "plan", "--farm", "no-such-farm");
+    assertThat(bad.exit()).isEqualTo(2);
+    assertThat(bad.err()).startsWith("rimeward: ").doesNotContain("Exception");
   }
 }
