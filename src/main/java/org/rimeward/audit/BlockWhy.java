@@ -91,6 +91,9 @@ public final class BlockWhy {
     for (Step s : steps) {
       collectLines(s.values(), null, lines);
     }
+    if (!lines.isEmpty()) {
+      lines.put(1, null); // the header, naming the columns of the lines quoted
+    }
     String[] forecast = run.inputs().stream().filter(i -> i.kind() == InputKind.FORECAST)
         .findFirst().map(i -> i.text().split("\r?\n", -1)).orElse(new String[0]);
     lines.replaceAll((n, v) -> n >= 1 && n <= forecast.length ? forecast[n - 1] : null);
@@ -209,7 +212,7 @@ public final class BlockWhy {
     s.append("Run ").append(run.runId()).append(", recorded ")
         .append(STAMP.format(run.ranAt().atZone(zone))).append(' ').append(run.zoneId())
         .append(", farm ").append(run.farmName()).append('\n');
-    s.append(block.protectionNeeded() ? "Protection started: " : "No protection was planned.")
+    s.append(block.protectionNeeded() ? "Protection planned:" : "No protection was planned.")
         .append('\n');
     for (JsonNode a : decision.path("actions")) {
       s.append("  ").append(action(a)).append('\n');

@@ -95,6 +95,19 @@ public final class Replay {
         s.append("\nno difference: the replay decides exactly as the recorded run did\n");
         return s.toString();
       }
+      java.util.Map<String, java.util.Set<String>> decisions = new java.util.TreeMap<>();
+      for (Difference d : differences) {
+        String[] p = d.path().split("/");
+        if (p.length >= 4 && p[1].equals("blocks") && Set.of("status", "risk", "actions",
+            "target_c", "kill_pct_unprotected").contains(p[3])) {
+          decisions.computeIfAbsent(p[2], k -> new java.util.TreeSet<>()).add(p[3]);
+        }
+      }
+      if (!decisions.isEmpty()) {
+        s.append("\nBlocks whose decision differs\n");
+        decisions.forEach((b, f) -> s.append("  ").append(b).append(": ")
+            .append(String.join(", ", f)).append('\n'));
+      }
       s.append("\n").append(differences.size()).append(differences.size() == 1 ? " difference"
           : " differences").append(" (recorded → now)\n");
       for (Difference d : differences) {
