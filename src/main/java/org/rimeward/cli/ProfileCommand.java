@@ -44,6 +44,13 @@ final class ProfileCommand implements Runnable {
     }
   }
 
+  /** The footer of the editing commands: where edits are recorded and what each exit code means. */
+  static final String EDIT_FOOTER = "Each edit is recorded in the audit trail (<farm>/audit.db, or"
+      + " --audit FILE) unless --no-audit is given. Exit codes: 0 written and recorded; 2 bad"
+      + " input, nothing written; 1 internal error, or the audit trail could not be opened"
+      + " (nothing written), or the edit was written but could not be recorded (the edit stays in"
+      + " the profile file, and the message says so).";
+
   static UnitSystem units(CommandSpec spec) {
     Object root = spec.root().userObject();
     return root instanceof RimewardCommand r ? r.global.units() : UnitSystem.METRIC;

@@ -17,7 +17,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "new-variety", mixinStandardHelpOptions = true,
     versionProvider = RimewardCommand.Version.class,
     description = "Add a variety to a crop file. It inherits the crop's stages; --offset makes it"
-        + " uniformly hardier (positive) or more tender (negative).")
+        + " uniformly hardier (positive) or more tender (negative).",
+    footer = {"", ProfileCommand.EDIT_FOOTER})
 final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();

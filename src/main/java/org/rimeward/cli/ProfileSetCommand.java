@@ -15,7 +15,8 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 @Command(name = "set", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
-    description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.")
+    description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.",
+    footer = {"", ProfileCommand.EDIT_FOOTER})
 final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
