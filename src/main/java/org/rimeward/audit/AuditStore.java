@@ -192,11 +192,24 @@ public final class AuditStore implements AutoCloseable {
 
   /** Records one crop-profile edit. */
   public synchronized void appendProfileEdit(ProfileEdit edit) {
-    inImmediateTransaction("record the profile edit of " + edit.file(), () -> {
+    appendProfileEdits(List.of(edit));
+  }
+
+  /**
+   * Records the edits of one command (a T10 and a T90 set together) in one transaction: all of
+   * them or, when this throws, none.
+   */
+  public synchronized void appendProfileEdits(List<ProfileEdit> edits) {
+    if (edits.isEmpty()) {
+      return;
+    }
+    inImmediateTransaction("record the profile edit of " + edits.get(0).file(), () -> {
       try (Appender a = new Appender()) {
-        a.append(Table.PROFILE_EDITS, STORED_INSTANT.format(edit.at()), edit.by(), edit.file(),
-            edit.crop(), edit.variety(), edit.stage(), edit.field(), edit.beforeC(), edit.afterC(),
-            edit.note());
+        for (ProfileEdit edit : edits) {
+          a.append(Table.PROFILE_EDITS, STORED_INSTANT.format(edit.at()), edit.by(), edit.file(),
+              edit.crop(), edit.variety(), edit.stage(), edit.field(), edit.beforeC(),
+              edit.afterC(), edit.note());
+        }
       }
       return null;
     });

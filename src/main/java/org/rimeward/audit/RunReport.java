@@ -168,6 +168,14 @@ public final class RunReport {
             .append(w.path("short").asBoolean(false) ? " -- SHORT" : "").append('\n');
       }
     }
+    if (!plan.path("farm_rules").isEmpty()) {
+      s.append("\nFarm-wide rules, in order\n");
+      for (JsonNode r : plan.path("farm_rules")) {
+        s.append("    ").append(r.path("seq").asText("?")).append(". ")
+            .append(r.path("id").asText("?")).append(": ").append(r.path("explanation").asText(""))
+            .append('\n');
+      }
+    }
     List<String> cautions = run.cautions();
     if (!cautions.isEmpty()) {
       s.append("\nCautions\n");

@@ -1,9 +1,11 @@
 package org.rimeward.cli;
 
 import java.io.PrintWriter;
+import java.time.Clock;
 import java.util.logging.Level;
 import java.util.logging.LogManager;
 import java.util.logging.Logger;
+import org.rimeward.audit.AuditUnavailableException;
 import org.rimeward.io.BadInputException;
 import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.units.QuantityException;
@@ -28,7 +30,12 @@ public final class Main {
 
   /** Runs one command line with the given streams and returns its exit code. */
   public static int execute(PrintWriter out, PrintWriter err, String... args) {
-    CommandLine cmd = new CommandLine(new RimewardCommand());
+    return execute(Clock.systemUTC(), out, err, args);
+  }
+
+  /** As {@link #execute(PrintWriter, PrintWriter, String...)}, stamping records with {@code clock}. */
+  public static int execute(Clock clock, PrintWriter out, PrintWriter err, String... args) {
+    CommandLine cmd = new CommandLine(new RimewardCommand(clock));
     cmd.setOut(out);
     cmd.setErr(err);
     cmd.setCaseInsensitiveEnumValuesAllowed(true);
@@ -48,6 +55,16 @@ public final class Main {
         return BAD_INPUT;
       }
       boolean debug = GlobalOptions.of(parseResult).debug;
+      AuditUnavailableException audit = audit(ex);
+      if (audit != null) {
+        // The trail could not be opened or written: a condition of the machine, not a bug.
+        c.getErr().println("rimeward: " + audit.getMessage());
+        if (debug) {
+          ex.printStackTrace(c.getErr());
+        }
+        c.getErr().flush();
+        return INTERNAL_ERROR;
+      }
       c.getErr().println("rimeward: internal error: " + ex
           + (debug ? "" : " (run again with --debug for details)"));
       if (debug) {
@@ -67,6 +84,15 @@ public final class Main {
       if (t instanceof BadInputException || t instanceof QuantityException
           || t instanceof OutOfRangeException) {
         return t;
+      }
+    }
+    return null;
+  }
+
+  private static AuditUnavailableException audit(Throwable ex) {
+    for (Throwable t = ex; t != null; t = t.getCause()) {
+      if (t instanceof AuditUnavailableException a) {
+        return a;
       }
     }
     return null;

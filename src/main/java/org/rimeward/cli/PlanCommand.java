@@ -1,8 +1,13 @@
 package org.rimeward.cli;
 
 import java.nio.file.Path;
+import java.time.Instant;
 import java.time.LocalDate;
 import java.util.concurrent.Callable;
+import org.rimeward.audit.AuditStore;
+import org.rimeward.audit.AuditUnavailableException;
+import org.rimeward.audit.RunRecorder;
+import org.rimeward.io.BadInputException;
 import org.rimeward.plan.NightPlanner;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanCsv;
@@ -18,8 +23,13 @@ import picocli.CommandLine.ParentCommand;
     description = {"The nightly decision run: for every block, whether tonight's freeze threatens"
         + " its buds, when to start and stop sprinkling, when covers go on and come off, and"
         + " whether the water sources carry it all, with the rules that led there."},
-    footer = {"", "Exit codes: 0 a plan was made (whatever it recommends); 2 bad input;"
-        + " 3 with --exit-code-on-action when a block needs protection; 1 internal error.",
+    footer = {"", "Every run is recorded in the audit trail (<farm>/audit.db, or --audit FILE)"
+        + " unless --no-audit is given: the inputs whole, each block's decision, every rule that"
+        + " fired. See 'rimeward audit'.",
+        "", "Exit codes: 0 a plan was made and recorded (whatever it recommends); 2 bad input;"
+        + " 3 with --exit-code-on-action when a block needs protection; 1 internal error, or the"
+        + " plan was printed but could not be recorded in the audit trail (the reason is on"
+        + " stderr; nothing of the run was kept there).",
         "", Cautions.HELP_FOOTER})
 final class PlanCommand implements Callable<Integer> {
   enum Format { TEXT, JSON, CSV }
@@ -50,8 +60,20 @@ final class PlanCommand implements Callable<Integer> {
       description = "Exit 3 when any block needs protection, for a scheduled job that alerts.")
   boolean exitCodeOnAction;
 
+  @Option(names = "--audit", paramLabel = "FILE",
+      description = "Audit database to record the run in (default: <farm>/audit.db).")
+  Path audit;
+
+  @Option(names = "--no-audit", description = "Do not record this run in the audit trail.")
+  boolean noAudit;
+
   @Override
   public Integer call() {
+    if (noAudit && audit != null) {
+      throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
+          + " records nothing, so it has no file to record in");
+    }
+    Instant ranAt = root.clock.instant();
     Plan plan = new NightPlanner().plan(new PlanRequest(farm, forecast, folders.cropProfiles(),
         folders.rules(), night));
     var out = root.spec.commandLine().getOut();
@@ -61,6 +83,20 @@ final class PlanCommand implements Callable<Integer> {
       default -> out.print(PlanText.render(plan, root.global.units(), explain));
     }
     out.flush();
+    if (!noAudit) {
+      // --farm may name the farm file itself; the trail then sits beside it.
+      Path db = audit != null ? audit : (java.nio.file.Files.isRegularFile(farm)
+          ? farm.toAbsolutePath().getParent() : farm).resolve("audit.db");
+      try (AuditStore store = AuditStore.open(db)) {
+        store.appendRun(RunRecorder.toRecord(plan, ranAt));
+      } catch (AuditUnavailableException e) {
+        var err = root.spec.commandLine().getErr();
+        err.println("rimeward: the plan above was NOT recorded in the audit trail: "
+            + e.getMessage());
+        err.flush();
+        return Main.INTERNAL_ERROR;
+      }
+    }
     return exitCodeOnAction && plan.actionNeeded() ? Main.ACTION_NEEDED : Main.OK;
   }
 }

@@ -4,6 +4,8 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import org.rimeward.audit.AuditStore;
+import org.rimeward.audit.AuditUnavailableException;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
@@ -42,6 +44,13 @@ final class ProfileCommand implements Runnable {
     }
   }
 
+  /** The footer of the editing commands: where edits are recorded and what each exit code means. */
+  static final String EDIT_FOOTER = "Each edit is recorded in the audit trail (<farm>/audit.db, or"
+      + " --audit FILE) unless --no-audit is given. Exit codes: 0 written and recorded; 2 bad"
+      + " input, nothing written; 1 internal error, or the audit trail could not be opened"
+      + " (nothing written), or the edit was written but could not be recorded (the edit stays in"
+      + " the profile file, and the message says so).";
+
   static UnitSystem units(CommandSpec spec) {
     Object root = spec.root().userObject();
     return root instanceof RimewardCommand r ? r.global.units() : UnitSystem.METRIC;
@@ -62,15 +71,78 @@ final class ProfileCommand implements Runnable {
   }
 
   /**
-   * Reports the edits just written. This is where the audit trail records each edit once the
-   * audit store exists (an {@code --audit FILE} option on the editing commands); until then the
-   * edits are only printed.
+   * Where profile edits are recorded: {@code --audit FILE}, else {@code <farm>/audit.db}; nothing
+   * with {@code --no-audit}.
    */
-  static void recorded(List<ProfileEdit> edits, PrintWriter out) {
+  static final class AuditTarget {
+    @Option(names = "--farm", paramLabel = "DIR", defaultValue = "demo-farm",
+        description = "Farm folder whose audit.db records the edit (default: ${DEFAULT-VALUE}).")
+    Path farm;
+
+    @Option(names = "--audit", paramLabel = "FILE",
+        description = "Audit database to record the edit in instead of <farm>/audit.db.")
+    Path audit;
+
+    @Option(names = "--no-audit", description = "Do not record the edit in the audit trail.")
+    boolean noAudit;
+
+    Path file() {
+      return audit != null ? audit : farm.resolve("audit.db");
+    }
+
+    /**
+     * Opens the trail before the profile is touched, so an unusable trail stops the edit; null
+     * with {@code --no-audit}.
+     */
+    AuditStore open(CommandSpec spec) {
+      if (noAudit) {
+        if (audit != null) {
+          throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
+              + " records nothing, so it has no file to record in");
+        }
+        return null;
+      }
+      try {
+        return AuditStore.open(file());
+      } catch (AuditUnavailableException e) {
+        throw new AuditUnavailableException("the profile was not changed: " + e.getMessage(), e);
+      }
+    }
+  }
+
+  /**
+   * Records the edits just written in the audit trail, in one transaction, and reports them.
+   * When the trail cannot take them the edits stay in the profile file (it is already written
+   * and correct); the error says so, and the exit code is 1.
+   *
+   * @param store null when the edit is not to be recorded ({@code --no-audit})
+   * @return the command's exit code
+   */
+  static int recorded(List<ProfileEdit> edits, AuditTarget target, AuditStore store,
+      CommandSpec spec) {
+    PrintWriter out = spec.commandLine().getOut();
+    if (store == null) {
+      out.println("not recorded in the audit trail (--no-audit)");
+      out.flush();
+      return Main.OK;
+    }
+    try {
+      store.appendProfileEdits(edits);
+    } catch (AuditUnavailableException e) {
+      out.flush();
+      PrintWriter err = spec.commandLine().getErr();
+      err.println("rimeward: the edit IS written to " + edits.get(0).file() + " but was NOT"
+          + " recorded in the audit trail: " + e.getMessage() + " The profile keeps the new value;"
+          + " note the change by hand, or undo it with 'rimeward profile set' once the trail works.");
+      err.flush();
+      return Main.INTERNAL_ERROR;
+    }
     for (ProfileEdit e : edits) {
-      out.printf(Locale.ROOT, "recorded: %s %s by %s: %s%s %s (%s)%n", e.at(), e.file(), e.by(),
-          e.crop(), e.variety() == null ? "" : "/" + e.variety(),
+      out.printf(Locale.ROOT, "recorded in %s: %s %s by %s: %s%s %s (%s)%n", target.file(), e.at(),
+          e.file(), e.by(), e.crop(), e.variety() == null ? "" : "/" + e.variety(),
           e.stage() == null ? e.field() : e.stage() + " " + e.field(), e.note());
     }
+    out.flush();
+    return Main.OK;
   }
 }

@@ -1,8 +1,9 @@
 package org.rimeward.cli;
 
 import java.io.PrintWriter;
-import java.time.Clock;
+import java.time.ZoneId;
 import java.util.List;
+import org.rimeward.audit.AuditStore;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.crop.ProfileEditor;
 import org.rimeward.io.BadInputException;
@@ -16,10 +17,12 @@ import picocli.CommandLine.Spec;
 @Command(name = "new-variety", mixinStandardHelpOptions = true,
     versionProvider = RimewardCommand.Version.class,
     description = "Add a variety to a crop file. It inherits the crop's stages; --offset makes it"
-        + " uniformly hardier (positive) or more tender (negative).")
-final class ProfileNewVarietyCommand implements Runnable {
+        + " uniformly hardier (positive) or more tender (negative).",
+    footer = {"", ProfileCommand.EDIT_FOOTER})
+final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
+  @Mixin ProfileCommand.AuditTarget auditTarget = new ProfileCommand.AuditTarget();
 
   @Parameters(index = "0", paramLabel = "CROP/VARIETY", description = "e.g. apple/honeycrisp")
   String target;
@@ -43,7 +46,7 @@ final class ProfileNewVarietyCommand implements Runnable {
   String by = System.getProperty("user.name", "unknown");
 
   @Override
-  public void run() {
+  public Integer call() {
     String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
     if (cv[1] == null) {
       throw new BadInputException("CROP/VARIETY: '" + target + "' names no variety; write it as"
@@ -58,15 +61,17 @@ final class ProfileNewVarietyCommand implements Runnable {
       }
       fromVariety = fv[1];
     }
-    ProfileEditor editor = new ProfileEditor(folder.resolve(), Clock.systemDefaultZone());
-    ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromVariety, offset,
-        ProfileCommand.units(spec), note, by);
-    PrintWriter out = spec.commandLine().getOut();
-    out.println("Added variety " + cv[0] + "/" + cv[1] + " to " + edit.file()
-        + (edit.afterC() == null ? " (no hardiness offset)"
-            : String.format(java.util.Locale.ROOT, " (hardiness offset %.2f °C, %.1f °F)",
-                edit.afterC(), edit.afterC() * 1.8)));
-    ProfileCommand.recorded(List.of(edit), out);
-    out.flush();
+    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+        RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
+    try (AuditStore store = auditTarget.open(spec)) {
+      ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromVariety, offset,
+          ProfileCommand.units(spec), note, by);
+      PrintWriter out = spec.commandLine().getOut();
+      out.println("Added variety " + cv[0] + "/" + cv[1] + " to " + edit.file()
+          + (edit.afterC() == null ? " (no hardiness offset)"
+              : String.format(java.util.Locale.ROOT, " (hardiness offset %.2f °C, %.1f °F)",
+                  edit.afterC(), edit.afterC() * 1.8)));
+      return ProfileCommand.recorded(List.of(edit), auditTarget, store, spec);
+    }
   }
 }

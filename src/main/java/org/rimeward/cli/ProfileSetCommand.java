@@ -1,8 +1,9 @@
 package org.rimeward.cli;
 
 import java.io.PrintWriter;
-import java.time.Clock;
+import java.time.ZoneId;
 import java.util.List;
+import org.rimeward.audit.AuditStore;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.crop.ProfileEditor;
 import org.rimeward.units.UnitSystem;
@@ -14,10 +15,12 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 @Command(name = "set", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
-    description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.")
-final class ProfileSetCommand implements Runnable {
+    description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.",
+    footer = {"", ProfileCommand.EDIT_FOOTER})
+final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
+  @Mixin ProfileCommand.AuditTarget auditTarget = new ProfileCommand.AuditTarget();
 
   @Parameters(index = "0", paramLabel = "CROP/VARIETY", description = "e.g. apple/golden-delicious")
   String target;
@@ -40,18 +43,21 @@ final class ProfileSetCommand implements Runnable {
   String by = System.getProperty("user.name", "unknown");
 
   @Override
-  public void run() {
+  public Integer call() {
     String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
     UnitSystem units = ProfileCommand.units(spec);
-    ProfileEditor editor = new ProfileEditor(folder.resolve(), Clock.systemDefaultZone());
-    List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, note, by);
-    PrintWriter out = spec.commandLine().getOut();
-    for (ProfileEdit e : edits) {
-      out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
-          + ProfileCommand.temp(e.beforeC(), units) + ", after " + ProfileCommand.temp(e.afterC(), units));
+    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+        RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
+    try (AuditStore store = auditTarget.open(spec)) {
+      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, note, by);
+      PrintWriter out = spec.commandLine().getOut();
+      for (ProfileEdit e : edits) {
+        out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
+            + ProfileCommand.temp(e.beforeC(), units) + ", after "
+            + ProfileCommand.temp(e.afterC(), units));
+      }
+      out.println("Written to " + edits.get(0).file());
+      return ProfileCommand.recorded(edits, auditTarget, store, spec);
     }
-    out.println("Written to " + edits.get(0).file());
-    ProfileCommand.recorded(edits, out);
-    out.flush();
   }
 }

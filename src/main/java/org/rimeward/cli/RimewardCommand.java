@@ -1,5 +1,7 @@
 package org.rimeward.cli;
 
+import java.time.Clock;
+import java.util.Objects;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.IVersionProvider;
 import picocli.CommandLine.Mixin;
@@ -15,6 +17,22 @@ import picocli.CommandLine.Spec;
 public final class RimewardCommand implements Runnable {
   @Mixin GlobalOptions global = new GlobalOptions();
   @Spec CommandSpec spec;
+
+  /** The clock that stamps recorded runs and edits; fixed in tests for repeatable records. */
+  final Clock clock;
+
+  public RimewardCommand() {
+    this(Clock.systemUTC());
+  }
+
+  public RimewardCommand(Clock clock) {
+    this.clock = Objects.requireNonNull(clock, "clock");
+  }
+
+  /** The clock of the command tree {@code spec} belongs to. */
+  static Clock clock(CommandSpec spec) {
+    return spec.root().userObject() instanceof RimewardCommand r ? r.clock : Clock.systemUTC();
+  }
 
   @Override
   public void run() {

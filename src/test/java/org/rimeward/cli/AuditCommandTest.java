@@ -197,6 +197,6 @@ class AuditCommandTest {
   void auditWithoutASubcommandIsBadInput() {
     Cli.Result r = Cli.run("audit");
     assertThat(r.exitCode()).isEqualTo(Main.BAD_INPUT);
-    assertThat(r.err()).contains("list, show, export or verify");
+    assertThat(r.err()).contains("list, show, why, replay, export or verify");
   }
 }

@@ -107,13 +107,14 @@ class ProfileCommandTest {
   @Test
   void newVarietyThenSetPrintBeforeAndAfter() throws IOException {
     Cli.Result nv = Cli.run("profile", "new-variety", "apple/honeycrisp", "--from", "apple/winesap",
-        "--note", "copied for block 9", "--by", "tester", "--crop-profiles", folder);
+        "--note", "copied for block 9", "--by", "tester", "--crop-profiles", folder,
+        "--audit", dir.resolve("audit.db").toString());
     assertThat(nv.exitCode()).as(nv.toString()).isZero();
     assertThat(nv.out()).contains("Added variety apple/honeycrisp").contains("hardiness offset 0.56 °C, 1.0 °F")
-        .contains("recorded: ");
+        .contains("recorded in " + dir.resolve("audit.db") + ": ");
     Cli.Result set = Cli.run("--units", "us", "profile", "set", "apple/honeycrisp", "--stage", "full-bloom",
         "--t10", "26", "--t90", "22F", "--note", "bud cuts 2024-04-12", "--by", "tester",
-        "--crop-profiles", folder);
+        "--crop-profiles", folder, "--audit", dir.resolve("audit.db").toString());
     assertThat(set.exitCode()).as(set.toString()).isZero();
     assertThat(set.out()).contains("apple/honeycrisp full-bloom t10: before 27.0 °F, after 26.0 °F")
         .contains("apple/honeycrisp full-bloom t90: before 24.0 °F, after 22.0 °F");
@@ -133,7 +134,7 @@ class ProfileCommandTest {
     assertThat(noNote.exitCode()).isEqualTo(Main.BAD_INPUT);
     assertThat(noNote.err()).contains("--note");
     Cli.Result warm = Cli.run("profile", "set", "apple/winesap", "--stage", "full-bloom", "--t90", "0",
-        "--note", "n", "--crop-profiles", folder);
+        "--note", "n", "--crop-profiles", folder, "--no-audit");
     assertThat(warm.exitCode()).isEqualTo(Main.BAD_INPUT);
     assertThat(warm.err()).contains("the change was not written").contains("is not colder than t10");
     Cli.Result otherCrop = Cli.run("profile", "new-variety", "apple/x", "--from", "pear/bartlett",

@@ -42,7 +42,8 @@ class ProfileJarIT {
 
   @Test
   void editingTheCopyInsideTheJarSaysWhatToDo() throws Exception {
-    Run r = java("profile", "set", "apple/winesap", "--stage", "full-bloom", "--t10", "-3", "--note", "n");
+    Run r = java("profile", "set", "apple/winesap", "--stage", "full-bloom", "--t10", "-3", "--note", "n",
+        "--no-audit");
     assertThat(r.exit()).isEqualTo(2);
     assertThat(r.err()).contains("packed inside the rimeward jar").contains("--crop-profiles DIR");
   }

@@ -1,0 +1,63 @@
+package org.rimeward.cli;
+
+import java.io.PrintWriter;
+import java.util.concurrent.Callable;
+import org.rimeward.audit.Replay;
+import org.rimeward.audit.RunRecord;
+import org.rimeward.io.BadInputException;
+import org.rimeward.plan.NightPlanner;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(name = "replay", mixinStandardHelpOptions = true,
+    versionProvider = RimewardCommand.Version.class,
+    description = {"Plan a recorded night again from the inputs the trail kept (the farm file,"
+        + " the forecast, the crop profiles and the rules, byte for byte) and compare the new plan"
+        + " with the recorded one. With --current-rules or --current-profiles, today's rules or"
+        + " crop profiles are used instead, to see what a change would have decided that night.",
+        "The audit database is only read: a replay is never recorded."},
+    footer = {"", "Exit codes: 0 the replay ran (with or without differences); 2 bad input, or"
+        + " the inputs no longer make a plan; 1 internal error or audit database unavailable; "
+        + AuditCommand.CHAIN_BROKEN + " a recorded row no longer matches its hash."})
+final class AuditReplayCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+  @Mixin AuditCommand.Location where = new AuditCommand.Location();
+  @Mixin DataFolders folders = new DataFolders();
+
+  @Parameters(paramLabel = "RUN", description = "Run id, or its first characters if unique.")
+  String run;
+
+  @Option(names = "--current-rules", description = "Use today's rules (--rules DIR, or the"
+      + " default rules) instead of the recorded ones.")
+  boolean currentRules;
+
+  @Option(names = "--current-profiles", description = "Use today's crop profiles"
+      + " (--crop-profiles DIR, or the default ones) instead of the recorded ones.")
+  boolean currentProfiles;
+
+  @Override
+  public Integer call() throws Exception {
+    if (folders.rules != null && !currentRules) {
+      throw new BadInputException("--rules: a replay uses the recorded rules unless"
+          + " --current-rules is given; add --current-rules to replay with " + folders.rules);
+    }
+    if (folders.cropProfiles != null && !currentProfiles) {
+      throw new BadInputException("--crop-profiles: a replay uses the recorded crop profiles unless"
+          + " --current-profiles is given; add --current-profiles to replay with "
+          + folders.cropProfiles);
+    }
+    return AuditCommand.guarded(spec, () -> {
+      RunRecord rec = AuditShowCommand.load(where, run);
+      Replay.Result result = new Replay(new NightPlanner()).replay(rec,
+          currentRules ? folders.rules() : null, currentProfiles ? folders.cropProfiles() : null);
+      PrintWriter out = spec.commandLine().getOut();
+      out.print(result.text());
+      out.flush();
+      return Main.OK;
+    });
+  }
+}

@@ -1,0 +1,44 @@
+package org.rimeward.audit;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.util.ArrayList;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+/** How a replayed plan document is compared with the recorded one. */
+class ReplayDiffTest {
+  static final ObjectMapper JSON = new ObjectMapper();
+
+  static List<Replay.Difference> diff(String a, String b) throws Exception {
+    List<Replay.Difference> out = new ArrayList<>();
+    Replay.diff("", JSON.readTree(a), JSON.readTree(b), out);
+    return out;
+  }
+
+  @Test
+  void theToolVersionAndTheWayANumberIsWrittenAreNoDifference() throws Exception {
+    assertThat(diff("{\"tool_version\":\"0.1.0\",\"x\":1.0}", "{\"tool_version\":\"0.2.0\",\"x\":1.00}"))
+        .isEmpty();
+  }
+
+  @Test
+  void blocksAreComparedByIdSoAReorderedPlanShowsTheRealChange() throws Exception {
+    String a = "{\"blocks\":[{\"block\":\"a\",\"status\":\"protected\"},{\"block\":\"b\",\"status\":\"not-needed\"}]}";
+    String b = "{\"blocks\":[{\"block\":\"b\",\"status\":\"protected\"},{\"block\":\"a\",\"status\":\"protected\"}]}";
+    List<Replay.Difference> d = diff(a, b);
+    assertThat(d).extracting(Replay.Difference::path)
+        .containsExactly("/blocks/b/status", "/blocks (order)");
+    assertThat(d.get(0).recorded().asText()).isEqualTo("not-needed");
+    assertThat(d.get(0).now().asText()).isEqualTo("protected");
+  }
+
+  @Test
+  void addedAndRemovedValuesAreNamed() throws Exception {
+    List<Replay.Difference> d = diff("{\"a\":[1,2],\"gone\":true}", "{\"a\":[1],\"new\":\"x\"}");
+    assertThat(d).extracting(Replay.Difference::path).containsExactly("/a/1", "/gone", "/new");
+    assertThat(d.get(0).now()).isNull();
+    assertThat(d.get(2).recorded()).isNull();
+  }
+}
