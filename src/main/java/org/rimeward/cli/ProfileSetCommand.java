@@ -29,10 +29,10 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
   String stage;
 
   @Option(names = "--t10", paramLabel = "TEMP",
-      description = "New 10% kill temperature, e.g. -2.8C or 27F (bare: °C, or °F with --units us).")
+      description = "New 10%% kill temperature, e.g. -2.8C or 27F (bare: °C, or °F with --units us).")
   String t10;
 
-  @Option(names = "--t90", paramLabel = "TEMP", description = "New 90% kill temperature.")
+  @Option(names = "--t90", paramLabel = "TEMP", description = "New 90%% kill temperature.")
   String t90;
 
   @Option(names = "--note", required = true,
