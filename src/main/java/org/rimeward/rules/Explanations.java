@@ -1,6 +1,8 @@
 package org.rimeward.rules;
 
 import java.lang.reflect.Method;
+import java.math.BigDecimal;
+import java.math.MathContext;
 import java.time.Instant;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
@@ -20,7 +22,7 @@ import org.rimeward.units.UnitSystem;
  * a variable the rule bound ({@code $name}) and, optionally, an accessor of it. The unit is read
  * from the name's suffix, as everywhere in Rimeward: {@code ...C} a temperature, {@code ...MmH} a
  * rate, {@code ...Ms} a wind speed, {@code ...M3H} a flow, {@code ...M3} a volume, {@code ...Ha}
- * an area, {@code ...Pct} a percentage. Times show as local clock times in the farm's zone.
+ * an area, {@code ...Pct} a percentage; {@code ...PerM3} is a ratio per cubic metre. Times show as local clock times in the farm's zone.
  */
 public final class Explanations {
   private static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z][A-Za-z0-9_]*(?:\\.[A-Za-z][A-Za-z0-9_]*)*)}");
@@ -87,6 +89,11 @@ public final class Explanations {
       }
       if (Double.isInfinite(d)) {
         return "more than any sprinkler can give";
+      }
+      if (name.endsWith("PerM3")) {
+        // A stake per cubic metre (crop value or hectares saved), not a volume: such ratios span
+        // orders of magnitude, so three significant figures, not a fixed number of decimals.
+        return new BigDecimal(d).round(new MathContext(3)).stripTrailingZeros().toPlainString();
       }
       Dimension dim = dimensionOf(name);
       if (dim == null) {

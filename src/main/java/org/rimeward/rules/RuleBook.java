@@ -113,6 +113,21 @@ public final class RuleBook {
     return contentHash;
   }
 
+  /** A compiled rule: its package, its id (the rule name) and its {@code @} metadata. */
+  record RuleInfo(String packageName, String id, java.util.Map<String, Object> metaData) {}
+
+  /** Every compiled rule, by package and id, for checks on the rule files themselves. */
+  List<RuleInfo> rules() {
+    List<RuleInfo> out = new ArrayList<>();
+    for (org.kie.api.definition.KiePackage p : kieBase.getKiePackages()) {
+      for (org.kie.api.definition.rule.Rule r : p.getRules()) {
+        out.add(new RuleInfo(p.getName(), r.getName(), java.util.Map.copyOf(r.getMetaData())));
+      }
+    }
+    out.sort(java.util.Comparator.comparing(RuleInfo::packageName).thenComparing(RuleInfo::id));
+    return List.copyOf(out);
+  }
+
   /** Inserts the facts, runs the phases in order and returns what the rules concluded and why. */
   public Outcome run(List<?> facts, ZoneId zone) {
     KieSession session = kieBase.newKieSession();

@@ -188,6 +188,34 @@ final class Scenario {
     }
   }
 
+  /**
+   * A frost night, 18:00 to 09:00 (16 hourly steps): the air falls to -4 °C at 05:00 and warms
+   * after sunrise; the wet bulb runs below it. With the default 1 °C depression the wet bud
+   * crosses -1.2 °C at 22:42 and the wet bulb rises through 0 °C at 07:40.
+   */
+  static final double[] FROST_AIR = {6, 5, 4, 3, 2, 1, 0, -1, -2, -3, -3.5, -4, -3, 0, 2, 4};
+  static final double[] FROST_WET = {3, 2.5, 2, 1.5, 0.5, -0.5, -1.5, -2, -3, -3.8, -4, -4.5, -3.5, -1, 0.5, 2};
+
+  /**
+   * Air for a night whose coldest step is exactly {@code minC}, at 02:00 (step 8, forecast line
+   * 10); every other step is warmer, and the morning is above 0 °C from 05:00.
+   */
+  static double[] coldestAt0200(double minC) {
+    return new double[] {6, 5, 4, 3, 2, 1, minC + 1, minC + 0.5, minC, minC + 0.5, minC + 1, 2, 3, 4, 5, 6};
+  }
+
+  /** Each value less {@code d}. */
+  static double[] minus(double[] a, double d) {
+    return java.util.Arrays.stream(a).map(x -> x - d).toArray();
+  }
+
+  /** A copy with step {@code i} set to {@code v}. */
+  static double[] with(double[] a, int i, double v) {
+    double[] c = a.clone();
+    c[i] = v;
+    return c;
+  }
+
   static double[] fill(int n, double v) {
     double[] a = new double[n];
     java.util.Arrays.fill(a, v);

@@ -106,11 +106,15 @@ public final class NightSeries {
     while (i > 0 && v[i - 1] >= threshold && epochSeconds[i - 1] >= nb) {
       i--;
     }
-    // Steps i..last are at or above; find the crossing between i-1 and i if there is one.
+    // Steps i..last are at or above. If step i-1 is below, the value crosses between i-1 and i;
+    // if it is at or above too, the walk stopped only because i-1 is before notBefore, and the
+    // value holds from notBefore on (both ends of that interval are at or above, linear between).
     long t = epochSeconds[i];
     if (i > 0 && v[i - 1] < threshold) {
       double f = (threshold - v[i - 1]) / (v[i] - v[i - 1]);
       t = epochSeconds[i - 1] + Math.round(f * (epochSeconds[i] - epochSeconds[i - 1]));
+    } else if (i > 0) {
+      t = nb;
     }
     if (t < nb) {
       t = nb;

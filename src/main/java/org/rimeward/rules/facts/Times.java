@@ -10,6 +10,11 @@ public final class Times {
     return a.isAfter(b) ? a : b;
   }
 
+  /** One minute after {@code t}: the earliest a run that starts at {@code t} can end. */
+  public static Instant minuteAfter(Instant t) {
+    return t.plusSeconds(60);
+  }
+
   public static Instant hoursBefore(Instant t, double hours) {
     return t.minusSeconds(Math.round(hours * 3600));
   }
