@@ -118,7 +118,13 @@ public final class Replay {
     }
 
     private static String shown(JsonNode n) {
-      return n == null ? "(absent)" : n.toString();
+      if (n == null) {
+        return "(absent)";
+      }
+      if (n.isObject() && n.has("id") && n.has("explanation")) {
+        return n.get("id").asText() + ": " + n.get("explanation").asText();
+      }
+      return n.toString();
     }
   }
 
@@ -225,12 +231,33 @@ public final class Replay {
         if (path.isEmpty() && IGNORED.contains(k)) {
           continue;
         }
+        // A rule's place in the firing order moves whenever any rule before it changes.
+        if (k.equals("seq") && path.matches(".*rules/[^/]+")) {
+          continue;
+        }
         diff(path + "/" + escape(k), a.get(k), b.get(k), out);
       }
       return;
     }
     if (a.isArray() && b.isArray()) {
-      String key = path.equals("/blocks") ? "block" : path.equals("/water") ? "source" : null;
+      String key = path.equals("/blocks") ? "block" : path.equals("/water") ? "source"
+          : path.endsWith("/rules") || path.equals("/farm_rules") ? "id" : null;
+      if (allText(a) && allText(b)) {
+        // Lists of words or sentences (cautions, served blocks): what came and what went.
+        Set<String> sa = texts(a);
+        Set<String> sb = texts(b);
+        for (String t : sa) {
+          if (!sb.contains(t)) {
+            out.add(new Difference(path, JSON.getNodeFactory().textNode(t), null));
+          }
+        }
+        for (String t : sb) {
+          if (!sa.contains(t)) {
+            out.add(new Difference(path, null, JSON.getNodeFactory().textNode(t)));
+          }
+        }
+        return;
+      }
       if (key != null && keyed(a, key) && keyed(b, key)) {
         Map<String, JsonNode> ma = byKey(a, key);
         Map<String, JsonNode> mb = byKey(b, key);
@@ -255,6 +282,21 @@ public final class Replay {
     if (!a.equals(b) && !(a.isNumber() && b.isNumber() && a.decimalValue().compareTo(b.decimalValue()) == 0)) {
       out.add(new Difference(path, a, b));
     }
+  }
+
+  private static boolean allText(JsonNode arr) {
+    for (JsonNode n : arr) {
+      if (!n.isTextual()) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  private static Set<String> texts(JsonNode arr) {
+    Set<String> out = new LinkedHashSet<>();
+    arr.forEach(n -> out.add(n.asText()));
+    return out;
   }
 
   private static boolean keyed(JsonNode arr, String key) {

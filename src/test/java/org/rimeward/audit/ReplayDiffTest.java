@@ -41,4 +41,26 @@ class ReplayDiffTest {
     assertThat(d.get(0).now()).isNull();
     assertThat(d.get(2).recorded()).isNull();
   }
+
+  @Test
+  void rulesAreMatchedByIdAndTheirFiringOrderIsNoDifference() throws Exception {
+    String a = "{\"blocks\":[{\"block\":\"a\",\"rules\":["
+        + "{\"seq\":1,\"id\":\"WIND-BREEZY\",\"explanation\":\"windy\"},"
+        + "{\"seq\":2,\"id\":\"RISK-DAMAGE\",\"explanation\":\"cold\"}]}]}";
+    String b = "{\"blocks\":[{\"block\":\"a\",\"rules\":["
+        + "{\"seq\":1,\"id\":\"RISK-DAMAGE\",\"explanation\":\"cold\"}]}]}";
+    List<Replay.Difference> d = diff(a, b);
+    assertThat(d).extracting(Replay.Difference::path).containsExactly("/blocks/a/rules/WIND-BREEZY");
+    assertThat(d.get(0).now()).isNull();
+  }
+
+  @Test
+  void cautionsAreComparedAsWhatCameAndWhatWent() throws Exception {
+    List<Replay.Difference> d = diff("{\"cautions\":[\"x\",\"y\"]}", "{\"cautions\":[\"y\",\"z\"]}");
+    assertThat(d).hasSize(2);
+    assertThat(d.get(0).recorded().asText()).isEqualTo("x");
+    assertThat(d.get(0).now()).isNull();
+    assertThat(d.get(1).recorded()).isNull();
+    assertThat(d.get(1).now().asText()).isEqualTo("z");
+  }
 }
