@@ -85,4 +85,29 @@ class CoverRulesTest {
         .hourly(a, Scenario.minus(a, 1.0)).done());
     assertThat(r.one(CoverPlan.class, "b1").remove()).isEqualTo(Scenario.SUNRISE);
   }
+
+  static BundledRules.Run coveredAndSprinkled(double minC) {
+    double[] a = air(minC);
+    return BundledRules.run(new Scenario().source("pond", 500, Double.NaN).block("b1")
+        .covers(2.0, 2).sprinklers(3.8, "pond").depression(0).hourly(a, Scenario.minus(a, 1.0)).done());
+  }
+
+  @Test
+  void coversStayOnUntilSprinklingOverThemStops() {
+    // Not enough alone (-4.25 + 2.0 = -2.25 °C), so sprinkling runs over the covers. The air lets
+    // them off at 07:30; the wet bulb (air - 1) reaches 0 °C between 07:00 (-2.5) and 08:00 (+0.5)
+    // at 2.5 / 3.0 of the hour, 07:50, when sprinkling stops: the covers stay on until then.
+    BundledRules.Run r = coveredAndSprinkled(-4.25);
+    assertThat(r.firedFor("b1")).containsOnlyOnce("COVER-OFF-AFTER-SPRINKLING");
+    assertThat(r.one(org.rimeward.rules.facts.CoverRemovalDelayed.class, "b1").remove())
+        .isEqualTo(Scenario.at(1, 7, 50));
+    assertThat(r.explanation("COVER-OFF-AFTER-SPRINKLING", "b1")).contains("07:50", "07:30");
+  }
+
+  @Test
+  void coversAloneComeOffOnTheirOwnTime() {
+    // Enough alone (-4.0 + 2.0 = -2.0 °C): no sprinkling, so nothing delays the removal.
+    BundledRules.Run r = coveredAndSprinkled(-4.0);
+    assertThat(r.firedFor("b1")).doesNotContain("COVER-OFF-AFTER-SPRINKLING", "SPRINKLE-PLAN");
+  }
 }
