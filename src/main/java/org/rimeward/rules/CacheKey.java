@@ -7,6 +7,7 @@ import java.net.URISyntaxException;
 import java.net.URL;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.attribute.BasicFileAttributes;
 import java.security.CodeSource;
 import java.util.HexFormat;
 import java.util.List;
@@ -14,14 +15,13 @@ import java.util.Properties;
 import java.util.TreeMap;
 import java.util.stream.Stream;
 import java.util.zip.CRC32;
-import java.util.zip.ZipEntry;
-import java.util.zip.ZipFile;
 
 /**
  * The key compiled rules are cached under. Compiled consequences and constraints are bytecode
  * that calls the fact classes as they were at compile time, so besides the rule text the key
- * covers every Rimeward class (by name, size and CRC-32, which a jar already records for each
- * entry, so nothing has to be unpacked), the rule engine's version and the Java version.
+ * covers the Rimeward build (run from a classes folder: every class's size and CRC-32; run from
+ * a jar: the jar's path, size and modification time), the rule engine's version and the Java
+ * version.
  */
 final class CacheKey {
   private static final String ROOT = "org/rimeward/";
@@ -65,12 +65,14 @@ final class CacheKey {
   }
 
   private static String computeFingerprint() {
+    Path location = codeLocation();
+    return location == null ? unknown() : fingerprintOf(location);
+  }
+
+  /** The fingerprint of the Rimeward classes in a classes folder or a jar. */
+  static String fingerprintOf(Path location) {
     TreeMap<String, String> entries = new TreeMap<>();
     try {
-      Path location = codeLocation();
-      if (location == null) {
-        return unknown();
-      }
       if (Files.isDirectory(location)) {
         Path root = location.resolve(ROOT);
         try (Stream<Path> walk = Files.walk(root)) {
@@ -83,15 +85,11 @@ final class CacheKey {
           }
         }
       } else {
-        try (ZipFile zip = new ZipFile(location.toFile())) {
-          for (var it = zip.entries(); it.hasMoreElements(); ) {
-            ZipEntry e = it.nextElement();
-            String name = e.getName();
-            if (name.startsWith(ROOT) && name.endsWith(".class")) {
-              entries.put(name, e.getSize() + ":" + Long.toHexString(e.getCrc()));
-            }
-          }
-        }
+        // A jar is rewritten whole by a build: its path, size and modification time tell one
+        // build from another without reading its thousands of entries on every start.
+        BasicFileAttributes a = Files.readAttributes(location, BasicFileAttributes.class);
+        entries.put(location.toAbsolutePath().toString(),
+            a.size() + ":" + a.lastModifiedTime().toMillis());
       }
     } catch (IOException | RuntimeException e) {
       return unknown();

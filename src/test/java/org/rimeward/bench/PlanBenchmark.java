@@ -266,7 +266,8 @@ public final class PlanBenchmark {
     }
 
     /** Writes farm.yaml and forecast.csv for an invented region, the same for the same seed. */
-    static void generate(Path dir, int blocks, int steps, CropLibrary crops, long seed) throws IOException {
+    public static void generate(Path dir, int blocks, int steps, CropLibrary crops, long seed)
+        throws IOException {
       Files.createDirectories(dir);
       Random rnd = new Random(seed);
       int sources = Math.max(1, blocks / 400);

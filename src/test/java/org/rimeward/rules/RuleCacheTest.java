@@ -250,6 +250,26 @@ class RuleCacheTest {
   }
 
   @Test
+  void aChangedClassOrARebuiltJarChangesTheCodeFingerprint() throws IOException {
+    Path classes = Files.createDirectories(tmp.resolve("classes/org/rimeward/rules/facts"));
+    Files.write(classes.resolve("Risk.class"), new byte[] {1, 2, 3});
+    Files.write(classes.resolve("Target.class"), new byte[] {4, 5});
+    String before = CacheKey.fingerprintOf(tmp.resolve("classes"));
+    assertThat(CacheKey.fingerprintOf(tmp.resolve("classes"))).isEqualTo(before);
+    Files.write(classes.resolve("Risk.class"), new byte[] {1, 2, 4});
+    assertThat(CacheKey.fingerprintOf(tmp.resolve("classes"))).isNotEqualTo(before);
+
+    Path jar = Files.write(tmp.resolve("rimeward.jar"), new byte[] {9, 9, 9});
+    Files.setLastModifiedTime(jar, FileTime.fromMillis(1_700_000_000_000L));
+    String built = CacheKey.fingerprintOf(jar);
+    assertThat(CacheKey.fingerprintOf(jar)).isEqualTo(built);
+    Files.setLastModifiedTime(jar, FileTime.fromMillis(1_700_000_001_000L));
+    assertThat(CacheKey.fingerprintOf(jar)).as("rebuilt").isNotEqualTo(built);
+    assertThat(CacheKey.fingerprintOf(tmp.resolve("missing"))).startsWith("unknown")
+        .isNotEqualTo(CacheKey.fingerprintOf(tmp.resolve("missing")));
+  }
+
+  @Test
   void theBundledRulesPlanTheDemoFarmTheSameFromTheCache() {
     Path bundled = Path.of("rules");
     NightPlanner compiled = new NightPlanner(d -> RuleBook.loadCached(d, cache));
