@@ -4,6 +4,7 @@ import java.lang.reflect.Method;
 import java.time.ZoneId;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.HashMap;
 import java.util.Map;
 import java.util.Optional;
 import org.kie.api.definition.rule.Rule;
@@ -20,6 +21,7 @@ import org.rimeward.units.UnitSystem;
 final class TrailListener extends DefaultAgendaEventListener {
   private final List<FiredRule> fired = new ArrayList<>();
   private final ZoneId zone;
+  private final Map<List<Object>, String> formatted = new HashMap<>();
 
   TrailListener(ZoneId zone) {
     this.zone = zone;
@@ -53,7 +55,7 @@ final class TrailListener extends DefaultAgendaEventListener {
         sourceId = idOf(o, "sourceId");
       }
     }
-    String text = Explanations.render(template, values, UnitSystem.METRIC, zone);
+    String text = Explanations.render(template, values, UnitSystem.METRIC, zone, formatted);
     fired.add(new FiredRule(fired.size() + 1, rule.getName(), kind, blockId, sourceId, template,
         values, text));
   }

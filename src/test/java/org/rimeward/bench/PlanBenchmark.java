@@ -110,6 +110,29 @@ public final class PlanBenchmark {
     }
     System.out.printf(Locale.ROOT, "  cache off, %d runs:               min %.2f s, median %.2f s%n",
         offRuns, min(off), median(off));
+
+    // JVM options a launcher or JDK_JAVA_OPTIONS could add (a jar manifest cannot): C1 only,
+    // and an application class-data archive made by one run of the plan.
+    Path jsa = work.resolve("rimeward.jsa");
+    List<String> dump = new ArrayList<>(cmd);
+    dump.add(1, "-XX:ArchiveClassesAtExit=" + jsa);
+    timed(dump, cwd, cache.toString());
+    List<List<String>> variants = List.of(List.of("-XX:TieredStopAtLevel=1"),
+        List.of("-XX:SharedArchiveFile=" + jsa), List.of("-XX:SharedArchiveFile=" + jsa, "-XX:TieredStopAtLevel=1"));
+    for (List<String> flags : variants) {
+      if (flags.get(0).startsWith("-XX:Shared") && !Files.isRegularFile(jsa)) {
+        System.out.println("  (no class-data archive was written; skipping " + flags + ")");
+        continue;
+      }
+      List<String> c = new ArrayList<>(cmd);
+      c.addAll(1, flags);
+      double[] t = new double[runs];
+      for (int i = 0; i < runs; i++) {
+        t[i] = timed(c, cwd, cache.toString());
+      }
+      String label = String.join(" ", flags).replace(jsa.toString(), "rimeward.jsa");
+      System.out.printf(Locale.ROOT, "  warm, %s:%n  %33s min %.2f s, median %.2f s%n", label, "", min(t), median(t));
+    }
   }
 
   private static String help(Path jar, Path cwd) throws Exception {
