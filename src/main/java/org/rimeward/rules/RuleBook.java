@@ -105,7 +105,8 @@ public final class RuleBook {
   }
 
   /**
-   * A last check that cached packages belong to these files: every rule file's package is there. The key already covers the text; this catches a mix-up in how it was made.
+   * A last check that cached packages belong to these files: every rule file's package is
+   * there. The key already covers the text; this catches a mix-up in how an entry was made.
    */
   private static boolean sameRules(KieBase base, List<RuleFile> files) {
     for (RuleFile f : files) {
