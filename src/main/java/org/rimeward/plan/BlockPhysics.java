@@ -1,6 +1,7 @@
 package org.rimeward.plan;
 
 import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.rimeward.farm.Block;
@@ -36,6 +37,37 @@ final class BlockPhysics {
 
   static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
       double pressureKPa, String forecastName) {
+    return compute(block, t10C, t90C, steps, pressureKPa, forecastName, new Memo());
+  }
+
+  /**
+   * The per-step physics depends on a block only through its cold-air offset and its sprinkler
+   * water temperature, so blocks that share both share one computation; a region of thousands
+   * of blocks has few distinct pairs.
+   */
+  static final class Memo {
+    private final Map<List<Double>, Steps> bySite = new HashMap<>();
+  }
+
+  /** One site's night, step by step, before it is tied to a block. */
+  private record Steps(long[] t, int[] lines, Map<Measure, double[]> v, double maxWindFreezing) {}
+
+  static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
+      double pressureKPa, String forecastName, Memo memo) {
+    double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(DEFAULT_WATER_TEMP_C);
+    List<Double> site = List.of(block.coldAirOffsetC(), waterTempC);
+    Steps computed = memo.bySite.get(site);
+    if (computed == null) {
+      computed = steps(block, steps, pressureKPa, forecastName, waterTempC);
+      memo.bySite.put(site, computed);
+    }
+    // NightSeries copies what it is given, so the shared arrays stay untouched.
+    return night(block, t10C, t90C, computed.t(), computed.lines(), computed.v(),
+        computed.maxWindFreezing());
+  }
+
+  private static Steps steps(Block block, List<ForecastStep> steps, double pressureKPa,
+      String forecastName, double waterTempC) {
     int n = steps.size();
     long[] t = new long[n];
     int[] lines = new int[n];
@@ -43,7 +75,6 @@ final class BlockPhysics {
     for (Measure m : Measure.values()) {
       v.put(m, new double[n]);
     }
-    double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(DEFAULT_WATER_TEMP_C);
     double maxWindFreezing = 0;
     for (int i = 0; i < n; i++) {
       ForecastStep s = steps.get(i);
@@ -81,6 +112,12 @@ final class BlockPhysics {
             + ": " + e.getMessage() + "; check this forecast line", e);
       }
     }
+    return new Steps(t, lines, v, maxWindFreezing);
+  }
+
+  private static BlockNight night(Block block, double t10C, double t90C, long[] t, int[] lines,
+      Map<Measure, double[]> v, double maxWindFreezing) {
+    int n = t.length;
     NightSeries series = new NightSeries(t, lines, v);
     int cold = series.indexOfMin(Measure.DRY_BUD_C);
     double minDryBud = series.valueAt(Measure.DRY_BUD_C, cold);

@@ -103,9 +103,13 @@ public final class NightPlanner {
     }
     Map<String, BlockFact> blockFacts = new HashMap<>();
     Map<String, BlockNight> nights = new HashMap<>();
+    // Blocks of one crop and variety share a profile, and blocks of one site its physics.
+    Map<List<String>, EffectiveProfile> profiles = new HashMap<>();
+    BlockPhysics.Memo physics = new BlockPhysics.Memo();
     for (Block b : farm.blocks()) {
-      BlockFact bf = blockFact(b, crops);
-      BlockNight bn = BlockPhysics.compute(b, bf.t10C(), bf.t90C(), window, pressureKPa, forecastName);
+      BlockFact bf = blockFact(b, crops, profiles);
+      BlockNight bn = BlockPhysics.compute(b, bf.t10C(), bf.t90C(), window, pressureKPa, forecastName,
+          physics);
       blockFacts.put(b.id(), bf);
       nights.put(b.id(), bn);
       facts.add(bf);
@@ -188,13 +192,19 @@ public final class NightPlanner {
   }
 
   static BlockFact blockFact(Block b, CropLibrary crops) {
-    EffectiveProfile profile;
+    return blockFact(b, crops, new HashMap<>());
+  }
+
+  static BlockFact blockFact(Block b, CropLibrary crops, Map<List<String>, EffectiveProfile> profiles) {
+    EffectiveProfile found;
     try {
-      profile = crops.effective(b.crop(), b.variety());
+      found = profiles.computeIfAbsent(java.util.Arrays.asList(b.crop(), b.variety()),
+          k -> crops.effective(b.crop(), b.variety()));
     } catch (BadInputException e) {
       String where = (b.variety() != null && crops.crop(b.crop()).isPresent() ? b.varietyRef() : b.cropRef()).toString();
       throw new BadInputException(where + ": block " + b.id() + ": " + e.getMessage(), e);
     }
+    EffectiveProfile profile = found;
     EffectiveStage stage = profile.stage(b.stage()).orElseThrow(() -> new BadInputException(
         b.stageRef() + ": block " + b.id() + ": stage '" + b.stage() + "' is not a stage of "
             + profile.label() + "; known stages: "

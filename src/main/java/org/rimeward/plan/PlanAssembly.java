@@ -3,9 +3,11 @@ package org.rimeward.plan;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.function.Function;
 import org.rimeward.BuildInfo;
 import org.rimeward.farm.Block;
 import org.rimeward.farm.Farm;
@@ -35,15 +37,24 @@ final class PlanAssembly {
   static Plan assemble(Farm farm, Forecast forecast, NightFact night, List<ForecastStep> window,
       Map<String, BlockFact> blockFacts, Map<String, BlockNight> nights, RuleBook.Outcome outcome,
       PlanInputs inputs) {
-    List<Risk> risks = outcome.all(Risk.class);
-    List<BlockStatus> statuses = outcome.all(BlockStatus.class);
-    List<Target> targets = outcome.all(Target.class);
-    List<CoverPlan> covers = outcome.all(CoverPlan.class);
-    List<SprinklePlan> sprinkles = outcome.all(SprinklePlan.class);
-    List<SprinkleStart> starts = outcome.all(SprinkleStart.class);
-    List<WithoutWater> without = outcome.all(WithoutWater.class);
-    List<CoverRemovalDelayed> delayed = outcome.all(CoverRemovalDelayed.class);
+    // Indexed by block once: a region of thousands of blocks must not scan every conclusion
+    // for every block.
+    Map<String, Risk> risks = byId(outcome.all(Risk.class), Risk::blockId);
+    Map<String, BlockStatus> statuses = byId(outcome.all(BlockStatus.class), BlockStatus::blockId);
+    Map<String, Target> targets = byId(outcome.all(Target.class), Target::blockId);
+    Map<String, CoverPlan> covers = byId(outcome.all(CoverPlan.class), CoverPlan::blockId);
+    Map<String, SprinklePlan> sprinkles = byId(outcome.all(SprinklePlan.class), SprinklePlan::blockId);
+    Map<String, SprinkleStart> starts = byId(outcome.all(SprinkleStart.class), SprinkleStart::blockId);
+    Map<String, WithoutWater> without = byId(outcome.all(WithoutWater.class), WithoutWater::blockId);
+    Map<String, CoverRemovalDelayed> delayed =
+        byId(outcome.all(CoverRemovalDelayed.class), CoverRemovalDelayed::blockId);
     List<FiredRule> trail = outcome.trail();
+    Map<String, List<FiredRule>> trailByBlock = new HashMap<>();
+    for (FiredRule f : trail) {
+      if (f.blockId() != null) {
+        trailByBlock.computeIfAbsent(f.blockId(), k -> new ArrayList<>()).add(f);
+      }
+    }
 
     List<BlockPlan> blocks = new ArrayList<>();
     for (Block b : farm.blocks()) {
@@ -51,23 +62,23 @@ final class PlanAssembly {
       BlockFact bf = blockFacts.get(id);
       BlockNight bn = nights.get(id);
       List<Action> actions = new ArrayList<>();
-      first(covers, CoverPlan::blockId, id).ifPresent(c -> actions.add(new Action.Cover(
+      first(covers, id).ifPresent(c -> actions.add(new Action.Cover(
           c.deployStart(), c.deployBy(),
-          first(delayed, CoverRemovalDelayed::blockId, id).map(CoverRemovalDelayed::remove).orElse(c.remove()),
+          first(delayed, id).map(CoverRemovalDelayed::remove).orElse(c.remove()),
           c.protectionC(), c.sufficient())));
-      first(sprinkles, SprinklePlan::blockId, id).ifPresent(s -> actions.add(new Action.Sprinkle(
+      first(sprinkles, id).ifPresent(s -> actions.add(new Action.Sprinkle(
           s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(), s.waterM3(), s.flowM3H(),
           s.sourceId(),
-          first(starts, SprinkleStart::blockId, id).map(SprinkleStart::atOnce).orElse(false),
-          first(without, WithoutWater::blockId, id).isEmpty())));
-      List<FiredRule> rules = trail.stream().filter(f -> id.equals(f.blockId())).toList();
+          first(starts, id).map(SprinkleStart::atOnce).orElse(false),
+          first(without, id).isEmpty())));
+      List<FiredRule> rules = List.copyOf(trailByBlock.getOrDefault(id, List.of()));
       blocks.add(new BlockPlan(id, bf.crop(), bf.variety(), bf.stage(), bf.stageName(), bf.t10C(),
           bf.t90C(), bf.thresholdSource(),
-          first(targets, Target::blockId, id).map(Target::targetC).orElse(bf.t10C()),
+          first(targets, id).map(Target::targetC).orElse(bf.t10C()),
           bn.minAirC(), bn.minDryBudC(), bn.minWetBulbC(), bn.coldestAt(), bn.coldestLine(),
-          first(risks, Risk::blockId, id).map(Risk::level).orElse(RiskLevel.NONE),
+          first(risks, id).map(Risk::level).orElse(RiskLevel.NONE),
           bn.unprotectedKillPct(),
-          first(statuses, BlockStatus::blockId, id).map(BlockStatus::status).orElseThrow(
+          first(statuses, id).map(BlockStatus::status).orElseThrow(
               () -> new IllegalStateException("no status rule fired for block " + id
                   + "; every block needs one STATUS rule")),
           actions, rules.stream().filter(FiredRule::isCaution).toList(), rules));
@@ -75,11 +86,11 @@ final class PlanAssembly {
     blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
         .thenComparing(BlockPlan::blockId));
 
-    List<WaterBalance> balances = outcome.all(WaterBalance.class);
+    Map<String, WaterBalance> balances = byId(outcome.all(WaterBalance.class), WaterBalance::sourceId);
     List<WaterEntry> water = new ArrayList<>();
     for (WaterSource w : farm.waterSources()) {
       double available = w.volumeM3().orElse(Double.NaN);
-      water.add(first(balances, WaterBalance::sourceId, w.id())
+      water.add(first(balances, w.id())
           .map(wb -> new WaterEntry(w.id(), wb.peakFlowM3H(), w.maxFlowM3H(), wb.volumeM3(),
               available, wb.shortOfWater(), wb.allocation().served(), wb.allocation().dropped()))
           .orElse(new WaterEntry(w.id(), 0, w.maxFlowM3H(), 0, available, false, List.of(), List.of())));
@@ -105,8 +116,19 @@ final class PlanAssembly {
         trail, inputs);
   }
 
-  private static <T> Optional<T> first(List<T> items, java.util.function.Function<T, String> id,
-      String wanted) {
-    return items.stream().filter(i -> wanted.equals(id.apply(i))).findFirst();
+  /** Each id's first item in list order, as a scan for the first match would find it. */
+  private static <T> Map<String, T> byId(List<T> items, Function<T, String> id) {
+    Map<String, T> out = new HashMap<>();
+    for (T item : items) {
+      String key = id.apply(item);
+      if (key != null) {
+        out.putIfAbsent(key, item);
+      }
+    }
+    return out;
+  }
+
+  private static <T> Optional<T> first(Map<String, T> byId, String wanted) {
+    return Optional.ofNullable(byId.get(wanted));
   }
 }

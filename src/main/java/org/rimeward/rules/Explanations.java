@@ -7,6 +7,7 @@ import java.time.Instant;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.function.Function;
@@ -61,12 +62,30 @@ public final class Explanations {
 
   /** Fills a template with already resolved values, in the given units and zone. */
   public static String render(String template, Map<String, Object> values, UnitSystem units, ZoneId zone) {
+    return render(template, values, units, zone, null);
+  }
+
+  /**
+   * As {@link #render(String, Map, UnitSystem, ZoneId)}, reusing numbers and times already
+   * formatted for the same placeholder name: a run over thousands of blocks formats the same
+   * thresholds and hours tens of thousands of times. {@code formatted} belongs to one units
+   * system and zone; null formats every value afresh.
+   */
+  static String render(String template, Map<String, Object> values, UnitSystem units, ZoneId zone,
+      Map<List<Object>, String> formatted) {
     Matcher m = PLACEHOLDER.matcher(template);
     StringBuilder sb = new StringBuilder();
     while (m.find()) {
       String path = m.group(1);
       String last = path.substring(path.lastIndexOf('.') + 1);
-      m.appendReplacement(sb, Matcher.quoteReplacement(format(last, values.get(path), units, zone)));
+      Object v = values.get(path);
+      String text;
+      if (formatted != null && (v instanceof Number || v instanceof Instant || v instanceof Moment)) {
+        text = formatted.computeIfAbsent(List.of(last, v), k -> format(last, v, units, zone));
+      } else {
+        text = format(last, v, units, zone);
+      }
+      m.appendReplacement(sb, Matcher.quoteReplacement(text));
     }
     m.appendTail(sb);
     return sb.toString();

@@ -11,6 +11,10 @@ import java.time.ZoneId;
 import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
+import java.util.logging.Level;
+import java.util.logging.Logger;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import org.kie.api.KieBase;
 import org.kie.api.KieServices;
@@ -20,6 +24,8 @@ import org.kie.api.builder.Message;
 import org.kie.api.builder.ReleaseId;
 import org.kie.api.runtime.KieContainer;
 import org.kie.api.runtime.KieSession;
+import org.drools.kiesession.rulebase.InternalKnowledgeBase;
+import org.drools.kiesession.rulebase.KnowledgeBaseFactory;
 import org.rimeward.io.BadInputException;
 
 /**
@@ -36,19 +42,87 @@ public final class RuleBook {
   private final List<RuleFile> files;
   private final String contentHash;
   private final KieBase kieBase;
+  private final Origin origin;
+
+  /** How a rule book's compiled form was obtained. */
+  public enum Origin {
+    /** Compiled from the DRL text in this run. */
+    COMPILED,
+    /** Read from the cache folder, written by an earlier run. */
+    CACHED
+  }
 
   /** A rule file as read: its path relative to the rules folder, and its text. */
   public record RuleFile(String name, String text, String sha256) {}
 
-  private RuleBook(Path folder, List<RuleFile> files, String contentHash, KieBase kieBase) {
+  private RuleBook(Path folder, List<RuleFile> files, String contentHash, KieBase kieBase,
+      Origin origin) {
     this.folder = folder;
     this.files = files;
     this.contentHash = contentHash;
     this.kieBase = kieBase;
+    this.origin = origin;
   }
 
-  /** Reads and compiles every {@code .drl} file below {@code folder}. */
+  /**
+   * Reads every {@code .drl} file below {@code folder} and compiles it, or takes the compiled
+   * form from the standard cache when one was made from exactly these files (see
+   * {@link RuleCache}).
+   */
   public static RuleBook load(Path folder) {
+    return load(folder, RuleCache.standard());
+  }
+
+  /** As {@link #load(Path)}, with compiled rules cached in {@code cacheDir} only. */
+  public static RuleBook loadCached(Path folder, Path cacheDir) {
+    return load(folder, RuleCache.inFolder(cacheDir));
+  }
+
+  /**
+   * Reads every {@code .drl} file below {@code folder}; uses the compiled packages in
+   * {@code cache} made from the same files, else compiles them and stores the result there.
+   */
+  public static RuleBook load(Path folder, RuleCache cache) {
+    List<RuleFile> files = readFolder(folder);
+    String hash = hashOf(files);
+    String key = CacheKey.of(hash);
+    var hit = cache.read(key);
+    if (hit.isPresent()) {
+      try {
+        InternalKnowledgeBase base = KnowledgeBaseFactory.newKnowledgeBase();
+        base.addPackages(hit.get());
+        if (sameRules(base, files)) {
+          return new RuleBook(folder, List.copyOf(files), hash, base, Origin.CACHED);
+        }
+      } catch (RuntimeException | LinkageError e) {
+        Logger.getLogger(RuleBook.class.getName()).log(Level.FINE,
+            "cached rules for " + folder + " do not load; compiling instead", e);
+      }
+    }
+    RuleBook book = compile(folder, files);
+    cache.write(key, book.kieBase.getKiePackages());
+    return book;
+  }
+
+  /**
+   * A last check that cached packages belong to these files: every rule file's package is
+   * there. The key already covers the text; this catches a mix-up in how an entry was made.
+   */
+  private static boolean sameRules(KieBase base, List<RuleFile> files) {
+    for (RuleFile f : files) {
+      Matcher m = PACKAGE.matcher(f.text());
+      String pkg = m.find() ? m.group(1) : "defaultpkg";
+      if (base.getKiePackage(pkg) == null) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  private static final Pattern PACKAGE =
+      Pattern.compile("(?m)^\\s*package\\s+([\\w.]+)\\s*;?");
+
+  private static List<RuleFile> readFolder(Path folder) {
     if (!Files.isDirectory(folder)) {
       throw new BadInputException("rules folder " + folder + " does not exist; pass --rules DIR"
           + " with the folder that holds the .drl files");
@@ -57,7 +131,7 @@ public final class RuleBook {
     if (files.isEmpty()) {
       throw new BadInputException("rules folder " + folder + " holds no .drl files");
     }
-    return compile(folder, files);
+    return files;
   }
 
   /** Compiles rule files given as text, for tests and for replaying recorded rules. */
@@ -82,7 +156,7 @@ public final class RuleBook {
           + "; fix the rule file or pass --rules with a folder that compiles");
     }
     KieContainer container = ks.newKieContainer(release);
-    return new RuleBook(folder, List.copyOf(files), hash, container.getKieBase());
+    return new RuleBook(folder, List.copyOf(files), hash, container.getKieBase(), Origin.COMPILED);
   }
 
   private static List<RuleFile> readFiles(Path folder) {
@@ -106,6 +180,11 @@ public final class RuleBook {
 
   public List<RuleFile> files() {
     return files;
+  }
+
+  /** Whether the rules were compiled in this run or read back compiled. */
+  public Origin origin() {
+    return origin;
   }
 
   /** SHA-256 over the rule files' names and texts, in name order. */

@@ -4,7 +4,9 @@ import java.lang.reflect.Method;
 import java.time.ZoneId;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.HashMap;
 import java.util.Map;
+import java.util.Optional;
 import org.kie.api.definition.rule.Rule;
 import org.kie.api.event.rule.AfterMatchFiredEvent;
 import org.kie.api.event.rule.DefaultAgendaEventListener;
@@ -19,6 +21,7 @@ import org.rimeward.units.UnitSystem;
 final class TrailListener extends DefaultAgendaEventListener {
   private final List<FiredRule> fired = new ArrayList<>();
   private final ZoneId zone;
+  private final Map<List<Object>, String> formatted = new HashMap<>();
 
   TrailListener(ZoneId zone) {
     this.zone = zone;
@@ -52,21 +55,39 @@ final class TrailListener extends DefaultAgendaEventListener {
         sourceId = idOf(o, "sourceId");
       }
     }
-    String text = Explanations.render(template, values, UnitSystem.METRIC, zone);
+    String text = Explanations.render(template, values, UnitSystem.METRIC, zone, formatted);
     fired.add(new FiredRule(fired.size() + 1, rule.getName(), kind, blockId, sourceId, template,
         values, text));
   }
 
   private static String idOf(Object fact, String accessor) {
+    Method m = (accessor.equals("blockId") ? BLOCK_ID : SOURCE_ID).get(fact.getClass()).orElse(null);
+    if (m == null) {
+      return null;
+    }
     try {
-      Method m = fact.getClass().getMethod(accessor);
       Object v = m.invoke(fact);
       return v == null ? null : v.toString();
-    } catch (NoSuchMethodException e) {
-      return null;
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException(e);
     }
+  }
+
+  // Looked up once per fact class: a large farm fires tens of thousands of rules.
+  private static final ClassValue<Optional<Method>> BLOCK_ID = accessorOf("blockId");
+  private static final ClassValue<Optional<Method>> SOURCE_ID = accessorOf("sourceId");
+
+  private static ClassValue<Optional<Method>> accessorOf(String name) {
+    return new ClassValue<>() {
+      @Override
+      protected Optional<Method> computeValue(Class<?> type) {
+        try {
+          return Optional.of(type.getMethod(name));
+        } catch (NoSuchMethodException e) {
+          return Optional.empty();
+        }
+      }
+    };
   }
 
   List<FiredRule> fired() {

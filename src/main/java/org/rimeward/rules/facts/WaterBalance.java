@@ -37,7 +37,8 @@ public record WaterBalance(String sourceId, double maxFlowM3H, double availableM
   }
 
   public boolean isDropped(String blockId) {
-    return allocation.dropped().contains(blockId);
+    // A scan, not dropped(): the rules ask this once per plan, and dropped() sorts every time.
+    return allocation.ranking().stream().anyMatch(r -> !r.served() && r.blockId().equals(blockId));
   }
 
   public String served() {
