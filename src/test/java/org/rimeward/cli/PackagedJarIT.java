@@ -68,4 +68,30 @@ class PackagedJarIT {
     assertThat(bad.exit()).isEqualTo(2);
     assertThat(bad.err()).startsWith("rimeward: ").doesNotContain("Exception");
   }
+
+  /** The launcher runs the same jar with start-up options, twice: writing its archive, then using it. */
+  @Test
+  void theLauncherRunsTheJarAndPassesTheExitCodeOn(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp)
+      throws Exception {
+    String jar = java.nio.file.Path.of(System.getProperty("rimeward.jar", "target/rimeward.jar"))
+        .toAbsolutePath().toString();
+    for (int i = 0; i < 2; i++) {
+      ProcessBuilder pb = new ProcessBuilder("sh", java.nio.file.Path.of("bin/rimeward").toAbsolutePath().toString(),
+          "plan", "--farm", "no-such-farm");
+      pb.environment().put("RIMEWARD_JAR", jar);
+      pb.environment().put("XDG_CACHE_HOME", tmp.toString());
+      pb.environment().put("JAVA_HOME", System.getProperty("java.home"));
+      Process p = pb.start();
+      String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+      String err = new String(p.getErrorStream().readAllBytes(), StandardCharsets.UTF_8);
+      assertThat(p.waitFor(120, TimeUnit.SECONDS)).isTrue();
+      assertThat(p.exitValue()).as(out + err).isEqualTo(2);
+      assertThat(err).startsWith("rimeward: ").contains("no-such-farm");
+      assertThat(out).isEmpty();
+    }
+    try (var files = java.nio.file.Files.list(tmp.resolve("rimeward/cds"))) {
+      assertThat(files.map(f -> f.getFileName().toString()).toList())
+          .singleElement().satisfies(n -> assertThat(n).endsWith(".jsa"));
+    }
+  }
 }
