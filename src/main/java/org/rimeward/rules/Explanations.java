@@ -121,7 +121,7 @@ public final class Explanations {
       }
       int decimals = switch (dim) {
         case FLOW, VOLUME, PERCENT -> 0;
-        case RATE -> units == UnitSystem.US ? 2 : 1;
+        case RATE -> units == UnitSystem.US ? 3 : 2;
         default -> 1;
       };
       if (dim == Dimension.PERCENT) {

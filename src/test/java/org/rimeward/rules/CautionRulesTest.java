@@ -79,7 +79,7 @@ class CautionRulesTest {
   void rateShortNamesBothRates() {
     double[] rate = Scenario.with(Scenario.fill(16, 2.0), 9, 4.5);
     BundledRules.Run r = frost(b -> b.sprinklers(3.8, "pond").rate(rate));
-    assertThat(r.explanation("CAUTION-RATE-SHORT", "b1")).contains("3.8 mm/h", "4.5 mm/h", "milky");
+    assertThat(r.explanation("CAUTION-RATE-SHORT", "b1")).contains("3.80 mm/h", "4.50 mm/h", "milky");
   }
 
   @Test
@@ -154,6 +154,22 @@ class CautionRulesTest {
   void unprotectedNamesTheExpectedKill() {
     BundledRules.Run r = frost(b -> b);
     assertThat(r.explanation("CAUTION-UNPROTECTED", "b1")).contains("b1", "40 %", "-5.0 °C");
+  }
+
+  @Test
+  void coversThatAreNotEnoughSaySoInsteadOfNothingProtects() {
+    // -5.0 °C coldest bud + 2.0 °C of cover = -3.0 °C, below the -2.2 °C target; no sprinklers.
+    BundledRules.Run r = frost(b -> b.covers(2.0, 2));
+    assertThat(r.fired()).contains("COVER-INSUFFICIENT", "CAUTION-COVERS-NOT-ENOUGH")
+        .doesNotContain("CAUTION-UNPROTECTED");
+    assertThat(r.explanation("CAUTION-COVERS-NOT-ENOUGH", "b1")).contains("-3.0 °C", "-2.2 °C", "40 %");
+  }
+
+  @Test
+  void noCoversNotEnoughCautionWhenCoversSuffice() {
+    // -4.0 + 2.0 = -2.0 °C under the covers: above the target, so the block is protected.
+    BundledRules.Run r = coldest(new Scenario(), -4.0, b -> b.covers(2.0, 2));
+    assertThat(r.fired()).contains("COVER-SUFFICIENT").doesNotContain("CAUTION-COVERS-NOT-ENOUGH");
   }
 
   @Test

@@ -173,7 +173,7 @@ class SprinkleStopRulesTest {
     assertThat(p.waterM3()).isCloseTo(152.0 * (8 + 58 / 60.0), within(1e-6));
     assertThat(p.requiredRateMmH()).isEqualTo(2.0);
     assertThat(r.explanation("SPRINKLE-PLAN", "b1"))
-        .contains("22:42", "07:40", "9.0 h", "3.8 mm/h", "152 m3/h", "1363 m3", "2.0 mm/h", "pond");
+        .contains("22:42", "07:40", "9.0 h", "3.80 mm/h", "152 m3/h", "1363 m3", "2.00 mm/h", "pond");
   }
 
   @Test
@@ -197,7 +197,7 @@ class SprinkleStopRulesTest {
     BundledRules.Run r = requiredAt0300(3.81);
     assertThat(r.firedFor("b1")).containsOnlyOnce("RATE-SHORT").doesNotContain("RATE-ENOUGH");
     assertThat(r.one(RateShortfall.class, "b1")).isEqualTo(new RateShortfall("b1", 3.81, 3.8));
-    assertThat(r.explanation("RATE-SHORT", "b1")).contains("3.8 mm/h");
+    assertThat(r.explanation("RATE-SHORT", "b1")).contains("3.80 mm/h", "3.81 mm/h");
   }
 
   @Test
@@ -205,7 +205,7 @@ class SprinkleStopRulesTest {
     BundledRules.Run r = requiredAt0300(3.8);
     assertThat(r.firedFor("b1")).containsOnlyOnce("RATE-ENOUGH").doesNotContain("RATE-SHORT");
     assertThat(r.all(RateShortfall.class)).isEmpty();
-    assertThat(r.explanation("RATE-ENOUGH", "b1")).contains("3.8 mm/h");
+    assertThat(r.explanation("RATE-ENOUGH", "b1")).contains("3.80 mm/h, covers the 3.80 mm/h");
   }
 
   @Test
