@@ -16,12 +16,19 @@ public final class AtomicFiles {
   private AtomicFiles() {}
 
   public static void writeString(Path target, String content) throws IOException {
+    write(target, content.getBytes(StandardCharsets.UTF_8));
+  }
+
+  public static void write(Path target, byte[] content) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
     Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
       try (var ch = java.nio.channels.FileChannel.open(tmp,
           java.nio.file.StandardOpenOption.WRITE, java.nio.file.StandardOpenOption.TRUNCATE_EXISTING)) {
-        ch.write(java.nio.ByteBuffer.wrap(content.getBytes(StandardCharsets.UTF_8)));
+        java.nio.ByteBuffer buf = java.nio.ByteBuffer.wrap(content);
+        while (buf.hasRemaining()) {
+          ch.write(buf);
+        }
         ch.force(true);
       }
       try {

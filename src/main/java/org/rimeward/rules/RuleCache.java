@@ -11,14 +11,9 @@ import java.io.ObjectInputFilter;
 import java.io.ObjectInputStream;
 import java.io.ObjectOutputStream;
 import java.io.ObjectStreamClass;
-import java.nio.ByteBuffer;
-import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 import java.nio.file.attribute.FileTime;
 import java.security.MessageDigest;
 import java.util.ArrayList;
@@ -118,7 +113,7 @@ public final class RuleCache {
     }
     try {
       Files.createDirectories(dir);
-      writeAtomically(entry(dir, key), encode(key, packages));
+      org.rimeward.io.AtomicFiles.write(entry(dir, key), encode(key, packages));
       prune(dir, KEEP);
     } catch (IOException | RuntimeException e) {
       LOG.log(Level.FINE, "compiled rules not cached in " + dir, e);
@@ -183,27 +178,6 @@ public final class RuleCache {
   private static <T> Optional<T> miss(String where, String why, Throwable e) {
     LOG.log(Level.FINE, "cached rules in " + where + " " + why + "; compiling instead", e);
     return Optional.empty();
-  }
-
-  private static void writeAtomically(Path target, byte[] content) throws IOException {
-    Path tmp = Files.createTempFile(target.getParent(), "." + target.getFileName() + ".", ".tmp");
-    try {
-      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE,
-          StandardOpenOption.TRUNCATE_EXISTING)) {
-        ByteBuffer buf = ByteBuffer.wrap(content);
-        while (buf.hasRemaining()) {
-          ch.write(buf);
-        }
-        ch.force(true);
-      }
-      try {
-        Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-      } catch (AtomicMoveNotSupportedException e) {
-        Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-      }
-    } finally {
-      Files.deleteIfExists(tmp);
-    }
   }
 
   /** Keeps the {@code keep} most recently written entries; others belong to old rules or builds. */

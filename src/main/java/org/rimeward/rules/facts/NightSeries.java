@@ -144,23 +144,21 @@ public final class NightSeries {
 
   /** The largest value at the steps between two moments, and at the two moments themselves. */
   public double max(Measure m, Instant from, Instant to) {
-    double best = Math.max(valueAtTime(m, from), valueAtTime(m, to));
-    for (int i = 0; i < epochSeconds.length; i++) {
-      Instant t = timeAt(i);
-      if (!t.isBefore(from) && !t.isAfter(to)) {
-        best = Math.max(best, values.get(m)[i]);
-      }
-    }
-    return best;
+    return extreme(m, from, to, Math::max);
   }
 
   /** The smallest value at the steps between two moments, and at the two moments themselves. */
   public double min(Measure m, Instant from, Instant to) {
-    double best = Math.min(valueAtTime(m, from), valueAtTime(m, to));
+    return extreme(m, from, to, Math::min);
+  }
+
+  private double extreme(Measure m, Instant from, Instant to, java.util.function.DoubleBinaryOperator pick) {
+    double best = pick.applyAsDouble(valueAtTime(m, from), valueAtTime(m, to));
+    double[] v = values.get(m);
     for (int i = 0; i < epochSeconds.length; i++) {
       Instant t = timeAt(i);
       if (!t.isBefore(from) && !t.isAfter(to)) {
-        best = Math.min(best, values.get(m)[i]);
+        best = pick.applyAsDouble(best, v[i]);
       }
     }
     return best;
