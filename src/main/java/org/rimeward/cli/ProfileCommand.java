@@ -44,6 +44,16 @@ final class ProfileCommand implements Runnable {
     }
   }
 
+  /** Who makes an edit, and the observation behind it: both go into the file and the trail. */
+  static final class Author {
+    @Option(names = "--note", required = true,
+        description = "Who observed what, and when; kept in the file.")
+    String note;
+
+    @Option(names = "--by", paramLabel = "NAME", description = "Who makes the change (default: login name).")
+    String by = System.getProperty("user.name", "unknown");
+  }
+
   /** The footer of the editing commands: where edits are recorded and what each exit code means. */
   static final String EDIT_FOOTER = "Each edit is recorded in the audit trail (<farm>/audit.db, or"
       + " --audit FILE) unless --no-audit is given. Exit codes: 0 written and recorded; 2 bad"

@@ -38,12 +38,7 @@ final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<In
   @Option(names = "--name", description = "Display name (default: the id).")
   String name;
 
-  @Option(names = "--note", required = true,
-      description = "Who observed what, and when; kept in the file.")
-  String note;
-
-  @Option(names = "--by", paramLabel = "NAME", description = "Who makes the change (default: login name).")
-  String by = System.getProperty("user.name", "unknown");
+  @Mixin ProfileCommand.Author author = new ProfileCommand.Author();
 
   @Override
   public Integer call() {
@@ -65,7 +60,7 @@ final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<In
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
     try (AuditStore store = auditTarget.open(spec)) {
       ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromVariety, offset,
-          ProfileCommand.units(spec), note, by);
+          ProfileCommand.units(spec), author.note, author.by);
       PrintWriter out = spec.commandLine().getOut();
       out.println("Added variety " + cv[0] + "/" + cv[1] + " to " + edit.file()
           + (edit.afterC() == null ? " (no hardiness offset)"

@@ -35,12 +35,7 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
   @Option(names = "--t90", paramLabel = "TEMP", description = "New 90%% kill temperature.")
   String t90;
 
-  @Option(names = "--note", required = true,
-      description = "Who observed what, and when; kept in the file.")
-  String note;
-
-  @Option(names = "--by", paramLabel = "NAME", description = "Who makes the change (default: login name).")
-  String by = System.getProperty("user.name", "unknown");
+  @Mixin ProfileCommand.Author author = new ProfileCommand.Author();
 
   @Override
   public Integer call() {
@@ -49,7 +44,7 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
     ProfileEditor editor = new ProfileEditor(folder.resolve(),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
     try (AuditStore store = auditTarget.open(spec)) {
-      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, note, by);
+      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note, author.by);
       PrintWriter out = spec.commandLine().getOut();
       for (ProfileEdit e : edits) {
         out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
