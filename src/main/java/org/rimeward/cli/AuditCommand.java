@@ -35,8 +35,8 @@ final class AuditCommand implements Runnable {
 
   /** Where the trail is: {@code --audit FILE}, else {@code <farm>/audit.db}. */
   static final class Location {
-    @Option(names = "--farm", paramLabel = "DIR", defaultValue = "demo-farm",
-        description = "Farm folder; its audit.db is read (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
+        description = "Farm folder; its audit.db is read (default: the current folder).")
     Path farm;
 
     @Option(names = "--audit", paramLabel = "FILE",

@@ -37,8 +37,8 @@ final class PlanCommand implements Callable<Integer> {
   @ParentCommand RimewardCommand root;
   @Mixin DataFolders folders;
 
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = "demo-farm",
-      description = "Farm folder holding farm.yaml and the forecast (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
+      description = "Farm folder holding farm.yaml and the forecast (default: the current folder).")
   Path farm;
 
   @Option(names = "--forecast", paramLabel = "FILE",

@@ -85,8 +85,8 @@ final class ProfileCommand implements Runnable {
    * with {@code --no-audit}.
    */
   static final class AuditTarget {
-    @Option(names = "--farm", paramLabel = "DIR", defaultValue = "demo-farm",
-        description = "Farm folder whose audit.db records the edit (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
+        description = "Farm folder whose audit.db records the edit (default: the current folder).")
     Path farm;
 
     @Option(names = "--audit", paramLabel = "FILE",
