@@ -86,7 +86,8 @@ final class BlockPhysics {
         double dew = Math.min(s.dewPointC(), air);
         double wind2m = Wind.at2mMs(s.windMs(), s.windHeightM());
         double wetBulb = Psychrometrics.wetBulbC(air, dew, pressureKPa);
-        BudTemperature bud = BudTemperature.estimate(air, dew, wind2m, s.cloudPct());
+        BudTemperature bud = BudTemperature.estimate(air, dew, wind2m, s.cloudPct(),
+            s.solarWm2().orElse(0.0));
         double rate;
         if (air > NO_ICE_NEEDED_ABOVE_C) {
           rate = 0.0;

@@ -63,4 +63,32 @@ class BudTemperatureTest {
     assertThatThrownBy(() -> BudTemperature.estimate(0, -5, -1, 0)).isInstanceOf(OutOfRangeException.class);
     assertThatThrownBy(() -> BudTemperature.estimate(0, -5, 0, 101)).isInstanceOf(OutOfRangeException.class);
   }
+
+  @Test
+  void withoutSunTheSolarFormIsTheNightForm() {
+    BudTemperature night = BudTemperature.estimate(-2, -6, 0.5, 0);
+    BudTemperature dark = BudTemperature.estimate(-2, -6, 0.5, 0, 0.0);
+    org.assertj.core.api.Assertions.assertThat(dark).isEqualTo(night);
+  }
+
+  /**
+   * Sunlit plant parts run warmer than the air in light wind (Campbell &amp; Norman 1998, ch. 14,
+   * from memory: a few kelvin for small organs in full sun). Here only the direction and order are
+   * checked: more sun, warmer bud; strong sun in light wind puts the bud above the air.
+   */
+  @Test
+  void theMorningSunWarmsABudAboveTheAir() {
+    double dawn = BudTemperature.estimate(-1, -6, 1.0, 0, 50).budTempC();
+    double morning = BudTemperature.estimate(-1, -6, 1.0, 0, 300).budTempC();
+    double noon = BudTemperature.estimate(-1, -6, 1.0, 0, 800).budTempC();
+    org.assertj.core.api.Assertions.assertThat(dawn).isLessThan(morning);
+    org.assertj.core.api.Assertions.assertThat(morning).isLessThan(noon);
+    org.assertj.core.api.Assertions.assertThat(noon).isGreaterThan(-1.0).isLessThan(4.0);
+  }
+
+  @Test
+  void solarRadiationOutOfRangeIsAnError() {
+    org.assertj.core.api.Assertions.assertThatThrownBy(() -> BudTemperature.estimate(0, -5, 1, 0, 2000))
+        .isInstanceOf(OutOfRangeException.class).hasMessageContaining("solar radiation");
+  }
 }
