@@ -32,6 +32,9 @@ class BundledRulesTest {
     assertThat(fired(o, "b1")).contains("TARGET-T10", "RISK-SEVERE", "NEEDS-PROTECTION",
         "START-THRESHOLD", "SPRINKLE-START", "SPRINKLE-STOP-WET-BULB-FREEZING", "SPRINKLE-PLAN",
         "RATE-ENOUGH", "STATUS-PROTECTED-BY-SPRINKLING");
-    o.trail().forEach(f -> System.out.println(f.ruleId() + ": " + f.explanation()));
+    // Hand arithmetic (wet bud = wet bulb - 1.0 °C depression): threshold -2.2 + 1.0 = -1.2 °C is
+    // crossed between 22:00 (-0.5) and 23:00 (-1.5) at 0.7 of the hour, 22:42.
+    assertThat(o.all(org.rimeward.rules.facts.SprinkleStart.class)).singleElement()
+        .satisfies(st -> assertThat(st.at()).isEqualTo(Scenario.at(0, 22, 42)));
   }
 }
