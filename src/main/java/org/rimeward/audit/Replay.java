@@ -258,6 +258,10 @@ public final class Replay {
         }
         return;
       }
+      if (key != null && key.equals("id") && !(keyed(a, key) && keyed(b, key))) {
+        // Farm-wide rules fire once per water source: tell them apart by the source they name.
+        key = SOURCE_KEY;
+      }
       if (key != null && keyed(a, key) && keyed(b, key)) {
         Map<String, JsonNode> ma = byKey(a, key);
         Map<String, JsonNode> mb = byKey(b, key);
@@ -299,21 +303,41 @@ public final class Replay {
     return out;
   }
 
+  private static final String SOURCE_KEY = "id@source";
+
   private static boolean keyed(JsonNode arr, String key) {
     Set<String> seen = new LinkedHashSet<>();
     for (JsonNode n : arr) {
-      if (!n.path(key).isTextual() || !seen.add(n.path(key).asText())) {
+      String k = keyOf(n, key);
+      if (k == null || !seen.add(k)) {
         return false;
       }
     }
     return true;
   }
 
+  /** The value that names an element: a field, or for farm-wide rules their id and source. */
+  private static String keyOf(JsonNode n, String key) {
+    if (!key.equals(SOURCE_KEY)) {
+      return n.path(key).isTextual() ? n.path(key).asText() : null;
+    }
+    if (!n.path("id").isTextual()) {
+      return null;
+    }
+    for (Iterator<Map.Entry<String, JsonNode>> it = n.path("values").fields(); it.hasNext();) {
+      Map.Entry<String, JsonNode> e = it.next();
+      if (e.getKey().endsWith("sourceId") && e.getValue().isTextual()) {
+        return n.get("id").asText() + "@" + e.getValue().asText();
+      }
+    }
+    return n.get("id").asText();
+  }
+
   private static Map<String, JsonNode> byKey(JsonNode arr, String key) {
     Map<String, JsonNode> m = new LinkedHashMap<>();
     for (Iterator<JsonNode> it = arr.elements(); it.hasNext();) {
       JsonNode n = it.next();
-      m.put(n.path(key).asText(), n);
+      m.put(keyOf(n, key), n);
     }
     return m;
   }

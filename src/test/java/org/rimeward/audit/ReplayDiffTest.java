@@ -63,4 +63,16 @@ class ReplayDiffTest {
     assertThat(d.get(1).recorded()).isNull();
     assertThat(d.get(1).now().asText()).isEqualTo("z");
   }
+
+  @Test
+  void farmWideRulesAreToldApartByTheirSource() throws Exception {
+    String a = "{\"farm_rules\":["
+        + "{\"seq\":1,\"id\":\"WATER-BUDGET\",\"explanation\":\"pond ok\",\"values\":{\"s.sourceId\":\"pond\"}},"
+        + "{\"seq\":2,\"id\":\"WATER-BUDGET\",\"explanation\":\"well ok\",\"values\":{\"s.sourceId\":\"well\"}}]}";
+    String b = "{\"farm_rules\":["
+        + "{\"seq\":1,\"id\":\"WATER-BUDGET\",\"explanation\":\"well ok\",\"values\":{\"s.sourceId\":\"well\"}}]}";
+    List<Replay.Difference> d = diff(a, b);
+    assertThat(d).extracting(Replay.Difference::path).containsExactly("/farm_rules/WATER-BUDGET@pond");
+    assertThat(d.get(0).now()).isNull();
+  }
 }
