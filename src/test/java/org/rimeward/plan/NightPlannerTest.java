@@ -166,4 +166,23 @@ class NightPlannerTest {
     assertThatThrownBy(() -> TestFarms.plan(farm)).isInstanceOf(BadInputException.class)
         .hasMessageContaining("forecast.csv").hasMessageContaining("ends at");
   }
+
+  @Test
+  void anExplicitNightPlansThatEveningAndAForecastForAnotherIsBadInput() {
+    double[] air = {6, 4, 2, 0, -2, -2.5, -3, -3, -3, -3, -3, -1, 2, 5, 7, 8, 9};
+    int n = air.length;
+    Path farm = TestFarms.oneBlock(tmp, APPLE_BLOCK, Forecasts.hourly("2026-04-14", 20, "-07:00",
+        air, Forecasts.fill(n, -6.0), Forecasts.fill(n, 1.0), Forecasts.fill(n, 0)));
+    Plan plan = new NightPlanner().plan(new PlanRequest(farm, null, TestFarms.CROPS, TestFarms.RULES,
+        java.time.LocalDate.of(2026, 4, 14)));
+    assertThat(plan.night().date()).hasToString("2026-04-14");
+    // The evening before: the forecast starts after that night's sunrise.
+    assertThatThrownBy(() -> new NightPlanner().plan(new PlanRequest(farm, null, TestFarms.CROPS,
+        TestFarms.RULES, java.time.LocalDate.of(2026, 4, 13))))
+        .isInstanceOf(BadInputException.class).hasMessageContaining("--night");
+    // The evening after: the forecast ends before that night's sunrise.
+    assertThatThrownBy(() -> new NightPlanner().plan(new PlanRequest(farm, null, TestFarms.CROPS,
+        TestFarms.RULES, java.time.LocalDate.of(2026, 4, 15))))
+        .isInstanceOf(BadInputException.class).hasMessageContaining("ends at");
+  }
 }
