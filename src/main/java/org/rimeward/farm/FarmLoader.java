@@ -26,6 +26,7 @@ import org.rimeward.farm.YamlTree.MapNode;
 import org.rimeward.farm.YamlTree.Node;
 import org.rimeward.farm.YamlTree.Scalar;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Loaded;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.QuantityException;
@@ -59,6 +60,11 @@ public final class FarmLoader {
    * given a file.
    */
   public static Farm load(Path farmDirOrFile) {
+    return loadWithContent(farmDirOrFile).value();
+  }
+
+  /** As {@link #load(Path)}, with the bytes of the farm file as read. */
+  public static Loaded<Farm> loadWithContent(Path farmDirOrFile) {
     Path path = Files.isDirectory(farmDirOrFile) ? farmDirOrFile.resolve(FILE_NAME) : farmDirOrFile;
     String label = path.toString();
     byte[] bytes;
@@ -84,7 +90,7 @@ public final class FarmLoader {
       text = text.substring(1);
     }
     Path folder = path.toAbsolutePath().getParent();
-    return new FarmLoader(label).read(YamlTree.parse(text, label), folder);
+    return new Loaded<>(new FarmLoader(label).read(YamlTree.parse(text, label), folder), bytes);
   }
 
   private Farm read(Node root, Path folder) {

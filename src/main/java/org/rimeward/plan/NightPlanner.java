@@ -24,6 +24,7 @@ import org.rimeward.farm.Policy;
 import org.rimeward.farm.Target;
 import org.rimeward.farm.WaterSource;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Loaded;
 import org.rimeward.physics.Atmosphere;
 import org.rimeward.physics.Night;
 import org.rimeward.physics.SunCalculator;
@@ -69,12 +70,16 @@ public final class NightPlanner {
   }
 
   public Plan plan(PlanRequest request) {
-    Farm farm = FarmLoader.load(request.farmDir());
+    // Each file is read once: the bytes planned from are the bytes the audit trail keeps.
+    Loaded<Farm> farmFile = FarmLoader.loadWithContent(request.farmDir());
+    Farm farm = farmFile.value();
     Path forecastFile = request.forecastFile() != null ? request.forecastFile() : farm.forecastFile();
-    Forecast forecast = ForecastReader.read(forecastFile, farm.zone());
+    Loaded<Forecast> forecastRead = ForecastReader.readWithContent(forecastFile, farm.zone());
+    Forecast forecast = forecastRead.value();
     CropLibrary crops = CropLibrary.load(request.cropProfilesDir());
     RuleBook book = rules.load(request.rulesDir());
-    PlanInputs inputs = inputsOf(farm, forecastFile, request.cropProfilesDir(), book);
+    PlanInputs inputs = inputsOf(farm, farmFile.content(), forecastFile, forecastRead.content(),
+        request.cropProfilesDir(), book);
     return plan(farm, forecast, crops, book, request.night(), inputs);
   }
 
@@ -228,12 +233,13 @@ public final class NightPlanner {
     return digits.length() == 2 && digits.charAt(0) == '6';
   }
 
-  static PlanInputs inputsOf(Farm farm, Path forecastFile, Path cropDir, RuleBook book) {
+  static PlanInputs inputsOf(Farm farm, byte[] farmBytes, Path forecastFile, byte[] forecastBytes,
+      Path cropDir, RuleBook book) {
     List<PlanInputs.Input> files = new ArrayList<>();
     files.add(new PlanInputs.Input(PlanInputs.Kind.FARM, farm.sourceFile().getFileName().toString(),
-        read(farm.sourceFile())));
+        farmBytes));
     files.add(new PlanInputs.Input(PlanInputs.Kind.FORECAST, forecastFile.getFileName().toString(),
-        read(forecastFile)));
+        forecastBytes));
     try (Stream<Path> list = Files.list(cropDir)) {
       for (Path p : list.filter(Files::isRegularFile).sorted().toList()) {
         files.add(new PlanInputs.Input(PlanInputs.Kind.CROP_PROFILE, p.getFileName().toString(), read(p)));

@@ -31,6 +31,7 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Loaded;
 import org.rimeward.physics.Psychrometrics;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
@@ -79,13 +80,20 @@ public final class ForecastReader {
    * Reads {@code csv}; local times without an offset are taken in {@code zone} (the farm's).
    */
   public static Forecast read(Path csv, ZoneId zone) {
-    Objects.requireNonNull(csv, "csv");
-    Objects.requireNonNull(zone, "zone");
-    return new ForecastReader(csv, zone).read();
+    return readWithContent(csv, zone).value();
   }
 
-  private Forecast read() {
-    text = readText();
+  /** As {@link #read(Path, ZoneId)}, with the bytes of the file as read. */
+  public static Loaded<Forecast> readWithContent(Path csv, ZoneId zone) {
+    Objects.requireNonNull(csv, "csv");
+    Objects.requireNonNull(zone, "zone");
+    ForecastReader reader = new ForecastReader(csv, zone);
+    byte[] bytes = reader.readBytes();
+    return new Loaded<>(reader.read(bytes), bytes);
+  }
+
+  private Forecast read(byte[] bytes) {
+    text = decode(bytes);
     lineStarts = lineStarts(text);
     List<CSVRecord> records = new ArrayList<>();
     CSVFormat format = CSVFormat.DEFAULT.builder().setIgnoreEmptyLines(true).setTrim(true).get();
@@ -136,16 +144,18 @@ public final class ForecastReader {
     return new Forecast(csv, steps);
   }
 
-  private String readText() {
-    byte[] bytes;
+  private byte[] readBytes() {
     try {
-      bytes = Files.readAllBytes(csv);
+      return Files.readAllBytes(csv);
     } catch (NoSuchFileException e) {
       throw BadInputException.at(file, "no such forecast file; put the night's forecast CSV there or"
           + " name it in farm.yaml (forecast: ...)");
     } catch (IOException e) {
       throw new BadInputException(file + ": could not read the forecast: " + e, e);
     }
+  }
+
+  private String decode(byte[] bytes) {
     try {
       String s = StandardCharsets.UTF_8.newDecoder()
           .onMalformedInput(CodingErrorAction.REPORT)
