@@ -61,6 +61,16 @@ public final class AuditStore implements AutoCloseable {
     this.busyTimeout = busyTimeout;
   }
 
+  /** The file name of a farm's audit trail, kept in its farm folder. */
+  public static final String FILE_NAME = "audit.db";
+
+  /** A farm's audit trail: {@code audit.db} in the farm folder, or beside the farm file given. */
+  public static Path fileFor(Path farmDirOrFile) {
+    Path dir = java.nio.file.Files.isRegularFile(farmDirOrFile)
+        ? farmDirOrFile.toAbsolutePath().getParent() : farmDirOrFile;
+    return dir.resolve(FILE_NAME);
+  }
+
   /** Opens the trail at {@code dbFile} for writing, creating or migrating its schema. */
   public static AuditStore open(Path dbFile) {
     return open(dbFile, DEFAULT_BUSY_TIMEOUT);

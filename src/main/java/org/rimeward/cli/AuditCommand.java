@@ -44,7 +44,7 @@ final class AuditCommand implements Runnable {
     Path audit;
 
     Path file() {
-      return audit != null ? audit : farm.resolve("audit.db");
+      return audit != null ? audit : AuditStore.fileFor(farm);
     }
 
     /** Opens the existing trail for reading; a missing file is the user's to fix. */

@@ -85,8 +85,7 @@ final class PlanCommand implements Callable<Integer> {
     out.flush();
     if (!noAudit) {
       // --farm may name the farm file itself; the trail then sits beside it.
-      Path db = audit != null ? audit : (java.nio.file.Files.isRegularFile(farm)
-          ? farm.toAbsolutePath().getParent() : farm).resolve("audit.db");
+      Path db = audit != null ? audit : AuditStore.fileFor(farm);
       try (AuditStore store = AuditStore.open(db)) {
         store.appendRun(RunRecorder.toRecord(plan, ranAt));
       } catch (AuditUnavailableException e) {

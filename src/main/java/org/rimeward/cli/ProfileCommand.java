@@ -97,7 +97,7 @@ final class ProfileCommand implements Runnable {
     boolean noAudit;
 
     Path file() {
-      return audit != null ? audit : farm.resolve("audit.db");
+      return audit != null ? audit : AuditStore.fileFor(farm);
     }
 
     /**
