@@ -28,8 +28,4 @@ public record BlockFact(String blockId, String crop, String variety, String stag
       throw new IllegalArgumentException(blockId + ": sprinklers need a rate above 0 and a source");
     }
   }
-
-  public boolean hasCropValue() {
-    return !Double.isNaN(cropValuePerHa);
-  }
 }

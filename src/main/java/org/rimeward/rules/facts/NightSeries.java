@@ -164,23 +164,12 @@ public final class NightSeries {
     return best;
   }
 
-  /** The step where the value is smallest (the first such step), or where it is largest. */
+  /** The step where the value is smallest (the first such step). */
   public int indexOfMin(Measure m) {
     double[] v = values.get(m);
     int best = 0;
     for (int i = 1; i < v.length; i++) {
       if (v[i] < v[best]) {
-        best = i;
-      }
-    }
-    return best;
-  }
-
-  public int indexOfMax(Measure m) {
-    double[] v = values.get(m);
-    int best = 0;
-    for (int i = 1; i < v.length; i++) {
-      if (v[i] > v[best]) {
         best = i;
       }
     }

@@ -14,8 +14,4 @@ public record WaterSourceFact(String sourceId, double maxFlowM3H, double volumeM
       throw new IllegalArgumentException(sourceId + ": max flow must be above 0 m3/h, was " + maxFlowM3H);
     }
   }
-
-  public boolean limitedVolume() {
-    return !Double.isNaN(volumeM3);
-  }
 }
