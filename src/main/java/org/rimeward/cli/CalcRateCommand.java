@@ -20,8 +20,6 @@ import picocli.CommandLine.Spec;
         "Decision support: uniform coverage and clear ice matter as much as the rate."},
     footer = {"", Cautions.HELP_FOOTER})
 final class CalcRateCommand implements Runnable {
-  /** Supply water temperature when none is given: spring pond or well water (common practice). */
-  static final double DEFAULT_WATER_TEMP_C = 5.0;
 
   @Spec CommandSpec spec;
 
@@ -58,7 +56,7 @@ final class CalcRateCommand implements Runnable {
     UnitSystem units = CalcOutput.units(spec);
     double dewC = CalcOutput.temperature(dewPoint, "--dew-point", units);
     double windMs = Quantities.parse(wind, Dimension.SPEED, "--wind");
-    double waterC = waterTemp == null ? DEFAULT_WATER_TEMP_C : CalcOutput.temperature(waterTemp, "--water-temp", units);
+    double waterC = waterTemp == null ? org.rimeward.farm.Sprinklers.DEFAULT_WATER_TEMP_C : CalcOutput.temperature(waterTemp, "--water-temp", units);
     double pressureKPa = Atmosphere.stationPressureKPa(
         elevation == null ? 0 : Quantities.parse(elevation, Dimension.LENGTH, "--elevation"));
     Map<String, Object> m = new LinkedHashMap<>();

@@ -5,6 +5,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.rimeward.farm.Block;
+import org.rimeward.farm.Sprinklers;
 import org.rimeward.io.BadInputException;
 import org.rimeward.physics.BudTemperature;
 import org.rimeward.physics.KillCurve;
@@ -30,9 +31,6 @@ final class BlockPhysics {
   /** The sprinkler balance holds up to this wind at 2 m; extension guidance stops at 4.5 m/s. */
   static final double SPRINKLING_WIND_LIMIT_MS = 5.0;
 
-  /** Supply water temperature when the farm file gives none: pond water on a spring night. */
-  static final double DEFAULT_WATER_TEMP_C = 5.0;
-
   private BlockPhysics() {}
 
   static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
@@ -54,7 +52,7 @@ final class BlockPhysics {
 
   static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
       double pressureKPa, String forecastName, Memo memo) {
-    double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(DEFAULT_WATER_TEMP_C);
+    double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(Sprinklers.DEFAULT_WATER_TEMP_C);
     List<Double> site = List.of(block.coldAirOffsetC(), waterTempC);
     Steps computed = memo.bySite.get(site);
     if (computed == null) {
