@@ -1,48 +1,76 @@
 package org.rimeward.audit;
 
+import java.nio.file.Path;
 import java.sql.Connection;
+import java.sql.PreparedStatement;
 import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
+import java.time.Clock;
+import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.stream.Collectors;
 
-/** The audit tables, their columns as the chain hashes them, and the ordered schema migrations. */
+/**
+ * The audit tables and the ordered schema migrations. Each table's columns are written once, in
+ * {@link Table}: its {@code CREATE TABLE}, its inserts, its reads and the chain hash all come
+ * from that one list, in that order.
+ */
 final class Schema {
+  private Schema() {}
+
   enum Type { TEXT, INTEGER, REAL, BLOB }
 
-  record Col(String name, Type type) {}
+  /** One column: its name, its type, and whether it may hold NULL. */
+  record Col(String name, Type type, boolean nullable) {
+    String ddl() {
+      return name + " " + type + (nullable ? "" : " NOT NULL");
+    }
+  }
+
+  private static Col col(String name, Type type) {
+    return new Col(name, type, false);
+  }
+
+  private static Col nullable(String name, Type type) {
+    return new Col(name, type, true);
+  }
 
   /**
    * A table whose every row is one chain record. The row's {@code seq} is its place in the chain;
-   * {@code cols} are hashed in this order.
+   * {@code cols} are hashed in this order. A recorded table's columns never change: an old row
+   * must hash as it did when written. New facts go in new tables.
    */
   enum Table {
-    RUNS("runs", col("run_id", Type.TEXT), col("ran_at", Type.TEXT), col("tool_version", Type.TEXT),
-        col("farm_name", Type.TEXT), col("night", Type.TEXT), col("zone_id", Type.TEXT),
-        col("policy_json", Type.TEXT), col("cautions_json", Type.TEXT), col("plan_json", Type.TEXT),
-        col("input_count", Type.INTEGER), col("block_count", Type.INTEGER),
-        col("rule_count", Type.INTEGER), col("protection_count", Type.INTEGER)),
-    RUN_INPUTS("run_inputs", col("run_id", Type.TEXT), col("ord", Type.INTEGER),
-        col("kind", Type.TEXT), col("name", Type.TEXT), col("sha256", Type.TEXT),
-        col("content", Type.BLOB)),
-    RUN_BLOCKS("run_blocks", col("run_id", Type.TEXT), col("ord", Type.INTEGER),
-        col("block_id", Type.TEXT), col("status", Type.TEXT), col("risk", Type.TEXT),
-        col("protection_needed", Type.INTEGER), col("decision_json", Type.TEXT),
-        col("rule_count", Type.INTEGER)),
-    RUN_RULES("run_rules", col("run_id", Type.TEXT), col("block_id", Type.TEXT),
-        col("fire_seq", Type.INTEGER), col("rule_id", Type.TEXT), col("explanation", Type.TEXT),
-        col("facts_json", Type.TEXT)),
-    PROFILE_EDITS("profile_edits", col("at", Type.TEXT), col("edited_by", Type.TEXT),
-        col("file", Type.TEXT), col("crop", Type.TEXT), col("variety", Type.TEXT),
-        col("stage", Type.TEXT), col("field", Type.TEXT), col("before_c", Type.REAL),
-        col("after_c", Type.REAL), col("note", Type.TEXT));
+    RUNS("runs", List.of("UNIQUE (run_id)"), col("run_id", Type.TEXT), col("ran_at", Type.TEXT),
+        col("tool_version", Type.TEXT), col("farm_name", Type.TEXT), col("night", Type.TEXT),
+        col("zone_id", Type.TEXT), col("policy_json", Type.TEXT), col("cautions_json", Type.TEXT),
+        col("plan_json", Type.TEXT), col("input_count", Type.INTEGER),
+        col("block_count", Type.INTEGER), col("rule_count", Type.INTEGER),
+        col("protection_count", Type.INTEGER)),
+    RUN_INPUTS("run_inputs", List.of("UNIQUE (run_id, ord)"), col("run_id", Type.TEXT),
+        col("ord", Type.INTEGER), col("kind", Type.TEXT), col("name", Type.TEXT),
+        col("sha256", Type.TEXT), col("content", Type.BLOB)),
+    RUN_BLOCKS("run_blocks", List.of("UNIQUE (run_id, block_id)"), col("run_id", Type.TEXT),
+        col("ord", Type.INTEGER), col("block_id", Type.TEXT), col("status", Type.TEXT),
+        col("risk", Type.TEXT), col("protection_needed", Type.INTEGER),
+        col("decision_json", Type.TEXT), col("rule_count", Type.INTEGER)),
+    RUN_RULES("run_rules", List.of("UNIQUE (run_id, block_id, fire_seq)"),
+        col("run_id", Type.TEXT), col("block_id", Type.TEXT), col("fire_seq", Type.INTEGER),
+        col("rule_id", Type.TEXT), col("explanation", Type.TEXT), col("facts_json", Type.TEXT)),
+    PROFILE_EDITS("profile_edits", List.of(), col("at", Type.TEXT), col("edited_by", Type.TEXT),
+        col("file", Type.TEXT), col("crop", Type.TEXT), nullable("variety", Type.TEXT),
+        nullable("stage", Type.TEXT), col("field", Type.TEXT), nullable("before_c", Type.REAL),
+        nullable("after_c", Type.REAL), col("note", Type.TEXT));
 
     final String sql;
+    final List<String> constraints;
     final List<Col> cols;
 
-    Table(String sql, Col... cols) {
+    Table(String sql, List<String> constraints, Col... cols) {
       this.sql = sql;
+      this.constraints = constraints;
       this.cols = List.of(cols);
     }
 
@@ -55,8 +83,25 @@ final class Schema {
       return null;
     }
 
+    int index(String column) {
+      for (int i = 0; i < cols.size(); i++) {
+        if (cols.get(i).name().equals(column)) {
+          return i;
+        }
+      }
+      throw new IllegalArgumentException(sql + " has no column " + column);
+    }
+
     String columnList() {
       return cols.stream().map(Col::name).collect(Collectors.joining(", "));
+    }
+
+    String createSql() {
+      List<String> parts = new ArrayList<>();
+      parts.add("seq INTEGER PRIMARY KEY");
+      cols.forEach(c -> parts.add(c.ddl()));
+      parts.addAll(constraints);
+      return "CREATE TABLE " + sql + " (" + String.join(", ", parts) + ")";
     }
 
     String insertSql() {
@@ -69,13 +114,10 @@ final class Schema {
     }
   }
 
-  private static Col col(String name, Type type) {
-    return new Col(name, type);
-  }
-
   /** One schema step; steps run in order, each in the migrating transaction. */
   record Migration(int version, String description, List<String> statements) {}
 
+  /** Add a step at the end; never change one that has been released. */
   static final List<Migration> MIGRATIONS = List.of(
       new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()));
 
@@ -84,47 +126,39 @@ final class Schema {
   }
 
   private static List<String> v1() {
-    List<String> s = new java.util.ArrayList<>(List.of(
-        "CREATE TABLE records (seq INTEGER PRIMARY KEY, kind TEXT NOT NULL,"
-            + " prev_hash TEXT NOT NULL, hash TEXT NOT NULL)",
-        "CREATE TABLE runs (seq INTEGER PRIMARY KEY, run_id TEXT NOT NULL UNIQUE,"
-            + " ran_at TEXT NOT NULL, tool_version TEXT NOT NULL, farm_name TEXT NOT NULL,"
-            + " night TEXT NOT NULL, zone_id TEXT NOT NULL, policy_json TEXT NOT NULL,"
-            + " cautions_json TEXT NOT NULL, plan_json TEXT NOT NULL, input_count INTEGER NOT NULL,"
-            + " block_count INTEGER NOT NULL, rule_count INTEGER NOT NULL,"
-            + " protection_count INTEGER NOT NULL)",
-        "CREATE TABLE run_inputs (seq INTEGER PRIMARY KEY, run_id TEXT NOT NULL,"
-            + " ord INTEGER NOT NULL, kind TEXT NOT NULL, name TEXT NOT NULL, sha256 TEXT NOT NULL,"
-            + " content BLOB NOT NULL, UNIQUE (run_id, ord))",
-        "CREATE TABLE run_blocks (seq INTEGER PRIMARY KEY, run_id TEXT NOT NULL,"
-            + " ord INTEGER NOT NULL, block_id TEXT NOT NULL, status TEXT NOT NULL,"
-            + " risk TEXT NOT NULL, protection_needed INTEGER NOT NULL,"
-            + " decision_json TEXT NOT NULL, rule_count INTEGER NOT NULL,"
-            + " UNIQUE (run_id, block_id))",
-        "CREATE TABLE run_rules (seq INTEGER PRIMARY KEY, run_id TEXT NOT NULL,"
-            + " block_id TEXT NOT NULL, fire_seq INTEGER NOT NULL, rule_id TEXT NOT NULL,"
-            + " explanation TEXT NOT NULL, facts_json TEXT NOT NULL,"
-            + " UNIQUE (run_id, block_id, fire_seq))",
-        "CREATE TABLE profile_edits (seq INTEGER PRIMARY KEY, at TEXT NOT NULL,"
-            + " edited_by TEXT NOT NULL, file TEXT NOT NULL, crop TEXT NOT NULL, variety TEXT,"
-            + " stage TEXT, field TEXT NOT NULL, before_c REAL, after_c REAL, note TEXT NOT NULL)",
-        "CREATE INDEX runs_by_night ON runs (night, ran_at)",
-        "CREATE INDEX runs_by_time ON runs (ran_at)",
-        "CREATE INDEX blocks_by_block ON run_blocks (block_id, run_id)"));
-    // Defence in depth: the tool never changes a recorded row, and neither may a stray UPDATE.
+    List<String> s = new ArrayList<>();
+    s.add("CREATE TABLE records (seq INTEGER PRIMARY KEY, kind TEXT NOT NULL,"
+        + " prev_hash TEXT NOT NULL, hash TEXT NOT NULL)");
+    for (Table t : List.of(Table.RUNS, Table.RUN_INPUTS, Table.RUN_BLOCKS, Table.RUN_RULES,
+        Table.PROFILE_EDITS)) {
+      s.add(t.createSql());
+    }
+    s.add("CREATE INDEX runs_by_night ON runs (night, ran_at)");
+    s.add("CREATE INDEX runs_by_time ON runs (ran_at)");
+    s.add("CREATE INDEX blocks_by_block ON run_blocks (block_id, run_id)");
     for (String t : List.of("records", "runs", "run_inputs", "run_blocks", "run_rules",
         "profile_edits")) {
-      for (String op : List.of("UPDATE", "DELETE")) {
-        s.add("CREATE TRIGGER " + t + "_no_" + op.toLowerCase(java.util.Locale.ROOT)
-            + " BEFORE " + op + " ON " + t + " BEGIN SELECT RAISE(ABORT, 'the audit trail is"
-            + " append-only: " + op + " on " + t + " is refused'); END");
-      }
+      s.addAll(appendOnly(t));
     }
     return List.copyOf(s);
   }
 
+  /**
+   * Defence in depth: the tool never changes a recorded row, and neither may a stray UPDATE or
+   * DELETE. Every new audit table gets these in the step that creates it.
+   */
+  static List<String> appendOnly(String table) {
+    List<String> s = new ArrayList<>();
+    for (String op : List.of("UPDATE", "DELETE")) {
+      s.add("CREATE TRIGGER " + table + "_no_" + op.toLowerCase(Locale.ROOT) + " BEFORE " + op
+          + " ON " + table + " BEGIN SELECT RAISE(ABORT, 'the audit trail is append-only: " + op
+          + " on " + table + " is refused'); END");
+    }
+    return s;
+  }
+
   /** Brings the schema to the latest version; the caller holds an IMMEDIATE transaction. */
-  static void migrate(Connection c, java.nio.file.Path file) throws SQLException {
+  static void migrate(Connection c, Path file, Clock clock) throws SQLException {
     try (Statement st = c.createStatement()) {
       st.execute("CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY,"
           + " applied_at TEXT NOT NULL, description TEXT NOT NULL)");
@@ -141,10 +175,10 @@ final class Schema {
         for (String sql : m.statements()) {
           st.execute(sql);
         }
-        try (var ps = c.prepareStatement(
+        try (PreparedStatement ps = c.prepareStatement(
             "INSERT INTO schema_version (version, applied_at, description) VALUES (?, ?, ?)")) {
           ps.setInt(1, m.version());
-          ps.setString(2, java.time.Instant.now().toString());
+          ps.setString(2, clock.instant().toString());
           ps.setString(3, m.description());
           ps.executeUpdate();
         }
@@ -152,7 +186,15 @@ final class Schema {
     }
   }
 
+  /** The schema version of an open file; 0 for a file rimeward never wrote. */
   static int currentVersion(Connection c) throws SQLException {
+    try (Statement st = c.createStatement();
+        ResultSet rs = st.executeQuery(
+            "SELECT count(*) FROM sqlite_master WHERE type = 'table' AND name = 'schema_version'")) {
+      if (!rs.next() || rs.getInt(1) == 0) {
+        return 0;
+      }
+    }
     try (Statement st = c.createStatement();
         ResultSet rs = st.executeQuery("SELECT coalesce(max(version), 0) FROM schema_version")) {
       return rs.next() ? rs.getInt(1) : 0;

@@ -1,0 +1,139 @@
+package org.rimeward.audit;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.type.TypeReference;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.sql.Connection;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.rimeward.audit.Schema.Table;
+import org.rimeward.crop.ProfileEdit;
+
+/**
+ * Reads runs and profile edits back out of the trail, by column name, checking every row against
+ * its chain hash as it goes: a changed row stops the read rather than reach a replay or a report.
+ * Works on a read-only connection.
+ */
+final class RunReader {
+  private static final ObjectMapper JSON = new ObjectMapper();
+
+  private final Connection conn;
+
+  RunReader(Connection conn) {
+    this.conn = conn;
+  }
+
+  List<RunSummary> list(Optional<LocalDate> since, Optional<String> blockId) throws SQLException {
+    String sql = "SELECT run_id, ran_at, night, farm_name, block_count, protection_count FROM runs"
+        + " WHERE (?1 IS NULL OR night >= ?1) AND (?2 IS NULL OR EXISTS (SELECT 1 FROM run_blocks b"
+        + " WHERE b.run_id = runs.run_id AND b.block_id = ?2)) ORDER BY ran_at DESC, seq DESC";
+    try (PreparedStatement ps = conn.prepareStatement(sql)) {
+      ps.setString(1, since.map(LocalDate::toString).orElse(null));
+      ps.setString(2, blockId.orElse(null));
+      List<RunSummary> out = new ArrayList<>();
+      try (ResultSet rs = ps.executeQuery()) {
+        while (rs.next()) {
+          out.add(new RunSummary(rs.getString("run_id"), Instant.parse(rs.getString("ran_at")),
+              LocalDate.parse(rs.getString("night")), rs.getString("farm_name"),
+              rs.getInt("block_count"), rs.getInt("protection_count")));
+        }
+      }
+      return out;
+    }
+  }
+
+  /** The ids of runs whose id is {@code p} or starts with it, the exact match first, at most 6. */
+  List<String> idsMatching(String p) throws SQLException {
+    List<String> ids = new ArrayList<>();
+    try (PreparedStatement ps = conn.prepareStatement(
+        "SELECT run_id FROM runs WHERE run_id = ?1 OR substr(run_id, 1, length(?1)) = ?1"
+            + " ORDER BY run_id = ?1 DESC, run_id LIMIT 6")) {
+      ps.setString(1, p);
+      try (ResultSet rs = ps.executeQuery()) {
+        while (rs.next()) {
+          ids.add(rs.getString(1));
+        }
+      }
+    }
+    return ids;
+  }
+
+  /** The newest run that planned {@code blockId}, for {@code night} when given. */
+  Optional<RunRecord> latestFor(String blockId, Optional<LocalDate> night) throws SQLException {
+    try (PreparedStatement ps = conn.prepareStatement("SELECT r.run_id FROM runs r JOIN"
+        + " run_blocks b ON b.run_id = r.run_id WHERE b.block_id = ?1 AND (?2 IS NULL OR"
+        + " r.night = ?2) ORDER BY r.ran_at DESC, r.seq DESC LIMIT 1")) {
+      ps.setString(1, blockId);
+      ps.setString(2, night.map(LocalDate::toString).orElse(null));
+      try (ResultSet rs = ps.executeQuery()) {
+        return rs.next() ? Optional.of(load(rs.getString(1))) : Optional.empty();
+      }
+    }
+  }
+
+  List<ProfileEdit> profileEdits() throws SQLException {
+    List<ProfileEdit> out = new ArrayList<>();
+    for (StoredRow r : StoredRow.select(conn, Table.PROFILE_EDITS, "1 = 1 ORDER BY t.seq")) {
+      out.add(new ProfileEdit(Instant.parse(r.text("at")), r.text("edited_by"), r.text("file"),
+          r.text("crop"), r.text("variety"), r.text("stage"), r.text("field"), r.real("before_c"),
+          r.real("after_c"), r.text("note")));
+    }
+    return out;
+  }
+
+  /** The whole run with this exact id, which must exist. */
+  RunRecord load(String runId) throws SQLException {
+    StoredRow run = StoredRow.select(conn, Table.RUNS, "t.run_id = ?", runId).get(0);
+    List<RecordedInput> inputs = new ArrayList<>();
+    for (StoredRow r : StoredRow.select(conn, Table.RUN_INPUTS, "t.run_id = ? ORDER BY t.ord",
+        runId)) {
+      try {
+        inputs.add(new RecordedInput(InputKind.valueOf(r.text("kind")), r.text("name"),
+            r.text("sha256"), r.blob("content")));
+      } catch (IllegalArgumentException e) {
+        throw new AuditIntegrityException(r.describe() + " cannot be read back: " + e.getMessage());
+      }
+    }
+    Map<String, List<RecordedRule>> rulesByBlock = new HashMap<>();
+    for (StoredRow r : StoredRow.select(conn, Table.RUN_RULES,
+        "t.run_id = ? ORDER BY t.block_id, t.fire_seq", runId)) {
+      rulesByBlock.computeIfAbsent(r.text("block_id"), k -> new ArrayList<>()).add(
+          new RecordedRule(Math.toIntExact(r.integer("fire_seq")), r.text("rule_id"),
+              r.text("explanation"), r.text("facts_json")));
+    }
+    List<RecordedBlock> blocks = new ArrayList<>();
+    for (StoredRow r : StoredRow.select(conn, Table.RUN_BLOCKS, "t.run_id = ? ORDER BY t.ord",
+        runId)) {
+      String blockId = r.text("block_id");
+      List<RecordedRule> rules = rulesByBlock.getOrDefault(blockId, List.of());
+      if (rules.size() != r.integer("rule_count")) {
+        throw new AuditIntegrityException(r.describe() + " lists " + r.integer("rule_count")
+            + " rules but " + rules.size() + " are recorded; run 'rimeward audit verify'");
+      }
+      blocks.add(new RecordedBlock(blockId, r.text("status"), r.text("risk"),
+          r.integer("protection_needed") != 0, r.text("decision_json"), rules));
+    }
+    if (inputs.size() != run.integer("input_count") || blocks.size() != run.integer("block_count")) {
+      throw new AuditIntegrityException(run.describe() + " lists " + run.integer("input_count")
+          + " inputs and " + run.integer("block_count") + " blocks but " + inputs.size() + " and "
+          + blocks.size() + " are recorded; run 'rimeward audit verify'");
+    }
+    List<String> cautions;
+    try {
+      cautions = JSON.readValue(run.text("cautions_json"), new TypeReference<List<String>>() {});
+    } catch (JsonProcessingException e) {
+      throw new AuditIntegrityException(run.describe() + " has unreadable cautions");
+    }
+    return new RunRecord(runId, Instant.parse(run.text("ran_at")), run.text("tool_version"),
+        run.text("farm_name"), LocalDate.parse(run.text("night")), run.text("zone_id"),
+        run.text("policy_json"), inputs, blocks, cautions, run.text("plan_json"));
+  }
+}
