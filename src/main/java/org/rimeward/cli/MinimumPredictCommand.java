@@ -16,7 +16,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "predict", mixinStandardHelpOptions = true,
     versionProvider = RimewardCommand.Version.class,
     description = {"Tonight's minimum from the site model (<farm>/site-minimum.yaml), given the air"
-        + " temperature and dew point two hours after sunset, with a 95 % prediction interval.",
+        + " temperature and dew point two hours after sunset, with a 95 %% prediction interval.",
         "Valid on clear calm nights only."},
     footer = {"", Cautions.HELP_FOOTER})
 final class MinimumPredictCommand implements Runnable {
