@@ -308,7 +308,7 @@ public final class FarmLoader {
 
     Optional<Sprinklers> sprinklers = b.optional("sprinklers").map(e -> {
       refs.put("sprinklers", ref(e));
-      return sprinklers(b.map(e), sources, refs);
+      return sprinklers(b.map(e), sources, refs, areaHa);
     });
     Optional<Covers> covers = b.optional("covers").map(e -> {
       refs.put("covers", ref(e));
@@ -339,8 +339,9 @@ public final class FarmLoader {
     return number / haPerUnit;
   }
 
-  private Sprinklers sprinklers(Section s, Map<String, WaterSource> sources, Map<String, SourceRef> refs) {
-    s.allow("rate", "source", "water_temp");
+  private Sprinklers sprinklers(Section s, Map<String, WaterSource> sources, Map<String, SourceRef> refs,
+      double blockAreaHa) {
+    s.allow("rate", "source", "water_temp", "sets");
     Entry rateEntry = s.required("rate", "the application rate, e.g. rate: 3.8 mm/h or 0.15 in/h");
     refs.put("sprinklers.rate", ref(rateEntry));
     double rate = s.quantity(rateEntry, Dimension.RATE);
@@ -373,7 +374,53 @@ public final class FarmLoader {
             Sprinklers.DEFAULT_WATER_TEMP_C));
       }
     }
-    return new Sprinklers(rate, source, waterC);
+    List<SprinklerSet> sets = s.optional("sets").map(e -> sets(s, e, rate, blockAreaHa)).orElse(List.of());
+    return new Sprinklers(rate, source, waterC, sets);
+  }
+
+  /** Irrigation sets: parts of the block switched as one, each with its area and, optionally, flow. */
+  private List<SprinklerSet> sets(Section parent, Entry e, double rateMmH, double blockAreaHa) {
+    ListNode list = parent.list(e);
+    if (list.items().isEmpty()) {
+      throw parent.bad(e, "the list is empty; give each set's id and area, or leave sets out");
+    }
+    List<SprinklerSet> out = new ArrayList<>();
+    Map<String, Integer> lines = new HashMap<>();
+    double total = 0;
+    for (int i = 0; i < list.items().size(); i++) {
+      Section s = section(list.items().get(i), parent.field("sets") + " item " + (i + 1), "id, area and flow");
+      Entry idEntry = s.required("id", "a short name for the set, e.g. id: north-valve");
+      String id = id(s, idEntry);
+      s = s.renamed(parent.field("sets") + "[" + id + "]");
+      s.allow("id", "area", "flow");
+      Integer previous = lines.putIfAbsent(id, idEntry.keyLine());
+      if (previous != null) {
+        throw s.bad(idEntry, "'" + id + "' is already the id of the set on line " + previous
+            + "; give each set its own id");
+      }
+      Entry areaEntry = s.required("area", "the area the set wets, e.g. area: 1.2 ha or 3 ac");
+      double area = s.quantity(areaEntry, Dimension.AREA);
+      if (!(area > 0)) {
+        throw s.bad(areaEntry, quote(areaEntry) + " must be above 0; give the area the set wets, e.g. 1.2 ha");
+      }
+      // Without a measured flow, the set draws the block's rate over its area: 1 mm on 1 ha is 10 m³.
+      double flow = rateMmH * area * 10.0;
+      Optional<Entry> f = s.optional("flow");
+      if (f.isPresent()) {
+        flow = s.quantity(f.get(), Dimension.FLOW);
+        if (!(flow > 0)) {
+          throw s.bad(f.get(), quote(f.get()) + " must be above 0; give what the set draws, e.g. 48 m3/h"
+              + " or 210 gpm, or leave flow out to take the block's rate over the set's area");
+        }
+      }
+      total += area;
+      out.add(new SprinklerSet(id, area, flow));
+    }
+    if (total > blockAreaHa * 1.001) {
+      throw parent.bad(e, String.format(Locale.ROOT, "the sets cover %.2f ha, more than the block's"
+          + " %.2f ha; check each set's area and the block's area", total, blockAreaHa));
+    }
+    return List.copyOf(out);
   }
 
   private Covers covers(Section s, Map<String, SourceRef> refs) {

@@ -1,5 +1,6 @@
 package org.rimeward.farm;
 
+import java.util.List;
 import java.util.Locale;
 
 /**
@@ -8,8 +9,9 @@ import java.util.Locale;
  * @param rateMmH the application rate, mm/h
  * @param sourceId the water source that feeds them
  * @param waterTempC the supply water temperature, °C
+ * @param sets the block's irrigation sets, in the file's order; empty when none are declared
  */
-public record Sprinklers(double rateMmH, String sourceId, double waterTempC) {
+public record Sprinklers(double rateMmH, String sourceId, double waterTempC, List<SprinklerSet> sets) {
   /**
    * Application rates accepted, mm/h. Over-plant frost systems run about 0.10–0.25 in/h
    * (2.5–6.4 mm/h: MSU, M. Longstroth 2012; UF/IFAS; Zamora &amp; Dukes 2015); the bounds leave
@@ -30,7 +32,13 @@ public record Sprinklers(double rateMmH, String sourceId, double waterTempC) {
   public static final double MIN_WATER_TEMP_C = 0.0;
   public static final double MAX_WATER_TEMP_C = 40.0;
 
+  /** Sprinklers with no irrigation sets declared. */
+  public Sprinklers(double rateMmH, String sourceId, double waterTempC) {
+    this(rateMmH, sourceId, waterTempC, List.of());
+  }
+
   public Sprinklers {
+    sets = List.copyOf(sets);
     Ids.check("sprinkler source", sourceId);
     if (!(rateMmH >= MIN_RATE_MM_H && rateMmH <= MAX_RATE_MM_H)) {
       throw new IllegalArgumentException(String.format(Locale.ROOT,

@@ -1,6 +1,8 @@
 package org.rimeward.plan;
 
 import java.time.Instant;
+import java.util.List;
+import org.rimeward.water.GrantKind;
 
 /** Something to do on a block tonight. */
 public sealed interface Action permits Action.Sprinkle, Action.Cover {
@@ -8,17 +10,36 @@ public sealed interface Action permits Action.Sprinkle, Action.Cover {
   Instant begins();
 
   /**
-   * Over-plant sprinkling from start to stop.
+   * Over-plant sprinkling from start to stop, as its water source can carry it.
    *
+   * @param designRateMmH the sprinklers' installed (design) rate
+   * @param runRateMmH the rate it actually runs at: the design rate, or lower when the source is
+   *     short; 0 when it gets no water
+   * @param waterM3 the water it is granted over the run
+   * @param flowM3H its granted draw while running
+   * @param areaHa the area protected
    * @param startsAtOnce the forecast already starts below the start threshold
-   * @param withWater false when the source is short and this block goes without
+   * @param grant how much of its call it gets; {@link GrantKind#NONE} means its sprinklers stay off
+   * @param sets the irrigation sets that run, when only some do
+   * @param wantedFlowM3H the draw at the design rate over the whole block
+   * @param wantedWaterM3 the water at the design rate over the whole block
    */
-  record Sprinkle(Instant start, Instant stop, double requiredRateMmH, double installedRateMmH,
-      double waterM3, double flowM3H, String source, boolean startsAtOnce, boolean withWater)
-      implements Action {
+  record Sprinkle(Instant start, Instant stop, double requiredRateMmH, double designRateMmH,
+      double runRateMmH, double waterM3, double flowM3H, double areaHa, String source,
+      boolean startsAtOnce, GrantKind grant, List<String> sets, double wantedFlowM3H,
+      double wantedWaterM3) implements Action {
+    public Sprinkle {
+      sets = List.copyOf(sets);
+    }
+
     @Override
     public Instant begins() {
       return start;
+    }
+
+    /** Whether the block gets any water: false means the sprinklers stay off tonight. */
+    public boolean withWater() {
+      return grant != GrantKind.NONE;
     }
   }
 

@@ -30,6 +30,7 @@ import org.rimeward.physics.Night;
 import org.rimeward.physics.SunCalculator;
 import org.rimeward.rules.RuleBook;
 import org.rimeward.rules.facts.BlockFact;
+import org.rimeward.rules.facts.BlockSets;
 import org.rimeward.rules.facts.BlockNight;
 import org.rimeward.rules.facts.NightFact;
 import org.rimeward.rules.facts.PolicyFact;
@@ -37,6 +38,7 @@ import org.rimeward.rules.facts.StopBasis;
 import org.rimeward.rules.facts.StopBeyondForecast;
 import org.rimeward.rules.facts.TargetBasis;
 import org.rimeward.rules.facts.WaterSourceFact;
+import org.rimeward.water.IrrigationSet;
 import org.rimeward.weather.Forecast;
 import org.rimeward.weather.ForecastReader;
 import org.rimeward.weather.ForecastStep;
@@ -119,6 +121,8 @@ public final class NightPlanner {
       nights.put(b.id(), bn);
       facts.add(bf);
       facts.add(bn);
+      b.sprinklers().filter(sp -> !sp.sets().isEmpty()).ifPresent(sp -> facts.add(new BlockSets(b.id(),
+          sp.sets().stream().map(x -> new IrrigationSet(x.id(), x.areaHa(), x.flowM3H())).toList())));
     }
     RuleBook.Outcome outcome = book.run(facts, farm.zone());
     List<StopBeyondForecast> beyond = outcome.all(StopBeyondForecast.class);

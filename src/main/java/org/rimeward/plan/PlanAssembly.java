@@ -26,7 +26,8 @@ import org.rimeward.rules.facts.SprinklePlan;
 import org.rimeward.rules.facts.SprinkleStart;
 import org.rimeward.rules.facts.Target;
 import org.rimeward.rules.facts.WaterBalance;
-import org.rimeward.rules.facts.WithoutWater;
+import org.rimeward.water.Grant;
+import org.rimeward.water.GrantKind;
 import org.rimeward.weather.Forecast;
 import org.rimeward.weather.ForecastStep;
 
@@ -45,7 +46,7 @@ final class PlanAssembly {
     Map<String, CoverPlan> covers = byId(outcome.all(CoverPlan.class), CoverPlan::blockId);
     Map<String, SprinklePlan> sprinkles = byId(outcome.all(SprinklePlan.class), SprinklePlan::blockId);
     Map<String, SprinkleStart> starts = byId(outcome.all(SprinkleStart.class), SprinkleStart::blockId);
-    Map<String, WithoutWater> without = byId(outcome.all(WithoutWater.class), WithoutWater::blockId);
+    Map<String, WaterBalance> balances = byId(outcome.all(WaterBalance.class), WaterBalance::sourceId);
     Map<String, CoverRemovalDelayed> delayed =
         byId(outcome.all(CoverRemovalDelayed.class), CoverRemovalDelayed::blockId);
     List<FiredRule> trail = outcome.trail();
@@ -66,11 +67,9 @@ final class PlanAssembly {
           c.deployStart(), c.deployBy(),
           first(delayed, id).map(CoverRemovalDelayed::remove).orElse(c.remove()),
           c.protectionC(), c.sufficient())));
-      first(sprinkles, id).ifPresent(s -> actions.add(new Action.Sprinkle(
-          s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(), s.waterM3(), s.flowM3H(),
-          s.sourceId(),
+      first(sprinkles, id).ifPresent(s -> actions.add(sprinkle(s,
           first(starts, id).map(SprinkleStart::atOnce).orElse(false),
-          first(without, id).isEmpty())));
+          first(balances, s.sourceId()).flatMap(w -> w.allocation().grant(id)))));
       List<FiredRule> rules = List.copyOf(trailByBlock.getOrDefault(id, List.of()));
       blocks.add(new BlockPlan(id, bf.crop(), bf.variety(), bf.stage(), bf.stageName(), bf.t10C(),
           bf.t90C(), bf.thresholdSource(),
@@ -86,14 +85,16 @@ final class PlanAssembly {
     blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
         .thenComparing(BlockPlan::blockId));
 
-    Map<String, WaterBalance> balances = byId(outcome.all(WaterBalance.class), WaterBalance::sourceId);
     List<WaterEntry> water = new ArrayList<>();
     for (WaterSource w : farm.waterSources()) {
       double available = w.volumeM3().orElse(Double.NaN);
       water.add(first(balances, w.id())
-          .map(wb -> new WaterEntry(w.id(), wb.peakFlowM3H(), w.maxFlowM3H(), wb.volumeM3(),
-              available, wb.shortOfWater(), wb.allocation().served(), wb.allocation().dropped()))
-          .orElse(new WaterEntry(w.id(), 0, w.maxFlowM3H(), 0, available, false, List.of(), List.of())));
+          .map(wb -> new WaterEntry(w.id(), wb.peakFlowM3H(), wb.wantedPeakFlowM3H(), w.maxFlowM3H(),
+              wb.volumeM3(), wb.wantedVolumeM3(), available, wb.shortOfWater(),
+              wb.allocation().served(), wb.allocation().part(), wb.allocation().dropped(),
+              wb.allocation().draws()))
+          .orElse(new WaterEntry(w.id(), 0, 0, w.maxFlowM3H(), 0, 0, available, false, List.of(),
+              List.of(), List.of(), List.of())));
     }
     water.sort(Comparator.comparing(WaterEntry::source));
 
@@ -114,6 +115,18 @@ final class PlanAssembly {
         farm.policy().startMarginC(), farm.policy().stopRule().yamlName());
     return new Plan(farm.name(), BuildInfo.version(), summary, policy, blocks, water, cautions,
         trail, inputs);
+  }
+
+  /** A block's sprinkling as its source grants it; every run at full rate when no balance was struck. */
+  private static Action.Sprinkle sprinkle(SprinklePlan s, boolean atOnce, Optional<Grant> grant) {
+    double hours = s.hours();
+    double fullFlow = s.flowM3H();
+    return grant.map(g -> new Action.Sprinkle(s.start(), s.stop(), s.requiredRateMmH(),
+            s.installedRateMmH(), g.rateMmH(), g.volumeM3(), g.flowM3H(), g.areaHa(), s.sourceId(),
+            atOnce, g.kind(), g.setIds(), fullFlow, fullFlow * hours))
+        .orElse(new Action.Sprinkle(s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(),
+            s.installedRateMmH(), s.waterM3(), fullFlow, s.areaHa(), s.sourceId(), atOnce,
+            GrantKind.FULL, List.of(), fullFlow, s.waterM3()));
   }
 
   /** Each id's first item in list order, as a scan for the first match would find it. */

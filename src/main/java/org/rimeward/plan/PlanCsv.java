@@ -11,7 +11,7 @@ import org.apache.commons.csv.CSVPrinter;
 public final class PlanCsv {
   static final String[] HEADER = {"night", "block", "crop", "variety", "stage", "risk",
       "kill_pct_unprotected", "status", "method", "start", "stop", "required_rate_mm_h",
-      "installed_rate_mm_h", "water_m3", "source"};
+      "installed_rate_mm_h", "water_m3", "source", "water_granted", "area_ha", "flow_m3_h", "grant"};
 
   private PlanCsv() {}
 
@@ -24,16 +24,21 @@ public final class PlanCsv {
         Object[] head = {plan.night().date(), b.blockId(), b.crop(), b.variety(), b.stage(),
             PlanJson.word(b.risk()), PlanJson.round(b.killPctUnprotected(), 1), PlanJson.word(b.status())};
         if (b.actions().isEmpty()) {
-          p.printRecord(concat(head, "none", "", "", "", "", "", ""));
+          p.printRecord(concat(head, "none", "", "", "", "", "", "", "", "", "", ""));
         }
         for (Action a : b.actions()) {
-          if (a instanceof Action.Sprinkle s) {
+          if (a instanceof Action.Sprinkle s && !s.withWater()) {
+            // Not "sprinkle" with times: a block granted no water keeps its sprinklers off.
+            p.printRecord(concat(head, "sprinklers-off", "", "", PlanJson.round(s.requiredRateMmH(), 2),
+                "", "", s.source(), false, PlanJson.round(0, 2), "", PlanJson.word(s.grant())));
+          } else if (a instanceof Action.Sprinkle s) {
             p.printRecord(concat(head, "sprinkle", PlanJson.time(s.start(), zone),
                 PlanJson.time(s.stop(), zone), PlanJson.round(s.requiredRateMmH(), 2),
-                PlanJson.round(s.installedRateMmH(), 2), PlanJson.round(s.waterM3(), 1), s.source()));
+                PlanJson.round(s.runRateMmH(), 2), PlanJson.round(s.waterM3(), 1), s.source(), true,
+                PlanJson.round(s.areaHa(), 2), PlanJson.round(s.flowM3H(), 1), PlanJson.word(s.grant())));
           } else if (a instanceof Action.Cover c) {
             p.printRecord(concat(head, "cover", PlanJson.time(c.deployStart(), zone),
-                PlanJson.time(c.remove(), zone), "", "", "", ""));
+                PlanJson.time(c.remove(), zone), "", "", "", "", "", "", "", ""));
           }
         }
       }

@@ -77,15 +77,23 @@ public final class PlanJson {
         ObjectNode x = actions.addObject();
         if (a instanceof Action.Sprinkle s) {
           x.put("method", "sprinkle");
-          x.put("start", time(s.start(), zone));
-          x.put("stop", time(s.stop(), zone));
+          // No water, no times: a crew must not read a start and stop as "sprinkle".
+          x.put("start", s.withWater() ? time(s.start(), zone) : null);
+          x.put("stop", s.withWater() ? time(s.stop(), zone) : null);
           x.put("starts_at_once", s.startsAtOnce());
           x.put("required_rate_mm_h", round(s.requiredRateMmH(), 2));
-          x.put("installed_rate_mm_h", round(s.installedRateMmH(), 2));
+          x.put("design_rate_mm_h", round(s.designRateMmH(), 2));
+          x.put("installed_rate_mm_h", round(s.runRateMmH(), 2));
           x.put("flow_m3_h", round(s.flowM3H(), 1));
+          x.put("area_ha", round(s.areaHa(), 2));
           x.put("water_m3", round(s.waterM3(), 1));
+          x.put("wanted_flow_m3_h", round(s.wantedFlowM3H(), 1));
+          x.put("wanted_water_m3", round(s.wantedWaterM3(), 1));
           x.put("source", s.source());
           x.put("water_granted", s.withWater());
+          x.put("grant", word(s.grant()));
+          ArrayNode sets = x.putArray("sets");
+          s.sets().forEach(sets::add);
         } else if (a instanceof Action.Cover c) {
           x.put("method", "cover");
           x.put("deploy_start", time(c.deployStart(), zone));
@@ -105,8 +113,10 @@ public final class PlanJson {
       ObjectNode o = water.addObject();
       o.put("source", w.source());
       o.put("peak_flow_m3_h", round(w.peakFlowM3H(), 1));
+      o.put("wanted_peak_flow_m3_h", round(w.wantedPeakFlowM3H(), 1));
       o.put("max_flow_m3_h", round(w.maxFlowM3H(), 1));
       o.put("volume_m3", round(w.volumeM3(), 1));
+      o.put("wanted_volume_m3", round(w.wantedVolumeM3(), 1));
       if (Double.isNaN(w.availableM3())) {
         o.putNull("available_m3");
       } else {
@@ -115,6 +125,8 @@ public final class PlanJson {
       o.put("short", w.isShortOfWater());
       ArrayNode served = o.putArray("served");
       w.served().forEach(served::add);
+      ArrayNode part = o.putArray("part");
+      w.part().forEach(part::add);
       ArrayNode without = o.putArray("without");
       w.without().forEach(without::add);
     }

@@ -51,19 +51,17 @@ public final class PlanText {
           row[5] = clock(c.deployStart(), zone);
           row[6] = clock(c.remove(), zone);
         } else if (a instanceof Action.Sprinkle s) {
-          row[4] = "sprinkle "
-              + Quantities.format(s.installedRateMmH(), Dimension.RATE, units, units == UnitSystem.US ? 2 : 1)
-              + " from " + s.source() + (s.startsAtOnce() ? ", START NOW" : "")
-              + (s.withWater() ? "" : ": NO WATER LEFT");
-          row[5] = clock(s.start(), zone);
-          row[6] = clock(s.stop(), zone);
-          row[7] = Quantities.format(s.waterM3(), Dimension.VOLUME, units, 0);
+          sprinkleRow(row, s, units, zone);
         }
         rows.add(row);
       }
       if (b.status() == org.rimeward.rules.facts.Status.SHORT_OF_WATER
+          || b.status() == org.rimeward.rules.facts.Status.PARTLY_PROTECTED
           || b.status() == org.rimeward.rules.facts.Status.UNPROTECTED && !b.actions().isEmpty()) {
-        rows.add(new String[] {"", "", "", "", "-> " + statusWord(b), "", "", ""});
+        rows.add(new String[] {"", "", "", "", "-> " + statusWord(b)
+            + (b.sprinkle().filter(s -> !s.withWater()).isPresent()
+                ? String.format(Locale.ROOT, ": sprinklers off, expect %.0f%% kill", b.killPctUnprotected()) : ""),
+            "", "", ""});
       }
     }
     table(sb, rows);
@@ -71,12 +69,15 @@ public final class PlanText {
     sb.append("\nWater\n");
     for (WaterEntry w : plan.water()) {
       sb.append("  ").append(w.source()).append(": peak ")
-          .append(Quantities.format(w.peakFlowM3H(), Dimension.FLOW, units, 0)).append(" of ")
+          .append(Quantities.format(w.peakFlowM3H(), Dimension.FLOW, units, 0))
+          .append(w.isShortOfWater() ? " (full protection wants "
+              + Quantities.format(w.wantedPeakFlowM3H(), Dimension.FLOW, units, 0) + ")" : "")
+          .append(" of ")
           .append(Quantities.format(w.maxFlowM3H(), Dimension.FLOW, units, 0)).append(", ")
           .append(Quantities.format(w.volumeM3(), Dimension.VOLUME, units, 0)).append(" of ")
           .append(Double.isNaN(w.availableM3()) ? "no volume limit"
               : Quantities.format(w.availableM3(), Dimension.VOLUME, units, 0))
-          .append(w.isShortOfWater() ? "  SHORT: without water: " + String.join(", ", w.without()) : "  enough")
+          .append(w.isShortOfWater() ? "  SHORT: " + shortWords(w) : "  enough")
           .append('\n');
     }
 
@@ -121,11 +122,46 @@ public final class PlanText {
         : Explanations.render(r.template(), r.values(), units, zone);
   }
 
+  /** One sprinkling row: what runs, at what rate, over how much of the block; no times without water. */
+  private static void sprinkleRow(String[] row, Action.Sprinkle s, UnitSystem units, ZoneId zone) {
+    int rd = units == UnitSystem.US ? 2 : 1;
+    String rate = Quantities.format(s.runRateMmH(), Dimension.RATE, units, rd);
+    String design = Quantities.format(s.designRateMmH(), Dimension.RATE, units, rd);
+    double blockHa = s.wantedFlowM3H() / (s.designRateMmH() * 10.0);
+    String part = Quantities.format(s.areaHa(), Dimension.AREA, units, 1) + " of "
+        + Quantities.format(blockHa, Dimension.AREA, units, 1);
+    String from = " from " + s.source() + (s.startsAtOnce() && s.withWater() ? ", START NOW" : "");
+    row[4] = switch (s.grant()) {
+      case FULL -> "sprinkle " + rate + from;
+      case REDUCED_RATE -> "sprinkle " + rate + " (installed " + design + ")" + from;
+      case SETS -> "sprinkle sets " + String.join(", ", s.sets()) + " (" + part + ") " + rate + from;
+      case PART_AREA -> "sprinkle " + part + " at " + rate + from;
+      case NONE -> "NO WATER from " + s.source() + ": keep sprinklers off";
+    };
+    if (s.withWater()) {
+      row[5] = clock(s.start(), zone);
+      row[6] = clock(s.stop(), zone);
+      row[7] = Quantities.format(s.waterM3(), Dimension.VOLUME, units, 0);
+    }
+  }
+
+  private static String shortWords(WaterEntry w) {
+    List<String> parts = new ArrayList<>();
+    if (!w.part().isEmpty()) {
+      parts.add("in part: " + String.join(", ", w.part()));
+    }
+    if (!w.without().isEmpty()) {
+      parts.add("without water: " + String.join(", ", w.without()));
+    }
+    return parts.isEmpty() ? "rates reduced, every block protected whole" : String.join("; ", parts);
+  }
+
   private static String statusWord(BlockPlan b) {
     return switch (b.status()) {
       case NOT_NEEDED -> "nothing needed";
       case UNPROTECTED -> "UNPROTECTED: no method available";
       case SHORT_OF_WATER -> "SHORT OF WATER";
+      case PARTLY_PROTECTED -> "PROTECTED IN PART, the rest unprotected";
       default -> word(b.status());
     };
   }

@@ -12,6 +12,7 @@ import org.rimeward.rules.facts.BlockFact;
 import org.rimeward.rules.facts.BlockStatus;
 import org.rimeward.rules.facts.CoverPlan;
 import org.rimeward.rules.facts.NeedsProtection;
+import org.rimeward.rules.facts.PartProtection;
 import org.rimeward.rules.facts.RateShortfall;
 import org.rimeward.rules.facts.SprinklePlan;
 import org.rimeward.rules.facts.Status;
@@ -181,10 +182,12 @@ class StatusRulesTest {
       boolean coversEnough = r.about(CoverPlan.class, id).stream().anyMatch(CoverPlan::sufficient);
       boolean plan = !r.about(SprinklePlan.class, id).isEmpty();
       boolean shortfall = !r.about(RateShortfall.class, id).isEmpty() || !r.about(WithoutWater.class, id).isEmpty();
+      boolean part = !r.about(PartProtection.class, id).isEmpty();
       Status expected = !needs ? Status.NOT_NEEDED
           : coversEnough ? Status.PROTECTED
           : !plan ? Status.UNPROTECTED
-          : shortfall ? Status.SHORT_OF_WATER : Status.PROTECTED;
+          : shortfall ? Status.SHORT_OF_WATER
+          : part ? Status.PARTLY_PROTECTED : Status.PROTECTED;
       assertThat(status).as("seed %d block %s", seed, id).isEqualTo(expected);
     }
   }

@@ -34,7 +34,8 @@ public record SprinklePlan(String blockId, String sourceId, Instant start, Insta
     return installedRateMmH < requiredRateMmH;
   }
 
-  Demand demand() {
-    return new Demand(blockId, start, stop, flowM3H, waterM3, killPct / 100.0, areaHa, cropValuePerHa);
+  Demand demand(java.util.List<org.rimeward.water.IrrigationSet> sets) {
+    return new Demand(blockId, start, stop, installedRateMmH, requiredRateMmH, areaHa,
+        killPct / 100.0, cropValuePerHa, sets);
   }
 }

@@ -4,6 +4,8 @@ package org.rimeward.rules.facts;
 public enum Status {
   NOT_NEEDED,
   PROTECTED,
+  /** Sprinkled over part of its area: the rest stays dry. */
+  PARTLY_PROTECTED,
   SHORT_OF_WATER,
   UNPROTECTED
 }
