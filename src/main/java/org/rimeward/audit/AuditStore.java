@@ -181,6 +181,24 @@ public final class AuditStore implements AutoCloseable {
     });
   }
 
+  /** Records what the crew did, as one chain record. */
+  public synchronized void appendAction(CrewAction action) {
+    db.inImmediateTransaction("record the action on " + action.blockId(), () -> {
+      try (ChainWriter a = new ChainWriter(db.conn)) {
+        a.append(Table.CREW_ACTIONS, STORED_INSTANT.format(action.at()),
+            STORED_INSTANT.format(action.recordedAt()), action.night().toString(), action.blockId(),
+            action.kind().word(), action.by(), action.note(), action.advisedRunId().orElse(null),
+            action.warning().orElse(null));
+      }
+      return null;
+    });
+  }
+
+  /** The crew's actions of a night, optionally of one block, in the order they were done. */
+  public synchronized List<CrewAction> listActions(LocalDate night, Optional<String> blockId) {
+    return db.read("list the crew's actions", () -> new RunReader(db.conn).actions(night, blockId));
+  }
+
   /**
    * Runs newest first.
    *

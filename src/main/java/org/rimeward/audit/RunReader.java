@@ -89,6 +89,21 @@ final class RunReader {
     return out;
   }
 
+  List<CrewAction> actions(LocalDate night, Optional<String> blockId) throws SQLException {
+    List<CrewAction> out = new ArrayList<>();
+    for (StoredRow r : StoredRow.select(conn, Table.CREW_ACTIONS, "t.night = ? AND (? IS NULL OR"
+        + " t.block_id = ?) ORDER BY t.at, t.seq", night.toString(), blockId.orElse(null),
+        blockId.orElse(null))) {
+      CrewAction.Kind kind = CrewAction.Kind.ofWord(r.text("kind")).orElseThrow(() ->
+          new AuditIntegrityException(r.describe() + " has an unknown kind '" + r.text("kind") + "'"));
+      out.add(new CrewAction(Instant.parse(r.text("at")), Instant.parse(r.text("recorded_at")),
+          LocalDate.parse(r.text("night")), r.text("block_id"), kind, r.text("done_by"),
+          r.text("note"), Optional.ofNullable(r.text("advised_run_id")),
+          Optional.ofNullable(r.text("warning"))));
+    }
+    return out;
+  }
+
   /** The whole run with this exact id, which must exist. */
   RunRecord load(String runId) throws SQLException {
     StoredRow run = StoredRow.select(conn, Table.RUNS, "t.run_id = ?", runId).get(0);

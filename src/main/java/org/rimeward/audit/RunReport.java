@@ -28,7 +28,8 @@ import org.rimeward.units.UnitSystem;
 public final class RunReport {
   /** The CSV columns, one row per block action (a block with no action gets one row, "none"). */
   public static final List<String> CSV_HEADER = List.of("run_id", "night", "block", "crop",
-      "stage", "status", "risk", "method", "start", "stop", "water_m3", "source", "first_rule");
+      "stage", "status", "risk", "method", "start", "stop", "water_m3", "source", "first_rule",
+      "done_start", "done_stop");
 
   private static final ObjectMapper JSON = new ObjectMapper()
       .enable(SerializationFeature.INDENT_OUTPUT);
@@ -66,6 +67,15 @@ public final class RunReport {
 
   /** One CSV row per block action, from the recorded plan, with {@link #CSV_HEADER}. */
   public static String csv(RunRecord run) {
+    return csv(run, List.of());
+  }
+
+  /**
+   * As {@link #csv(RunRecord)}, with what the crew recorded beside each advised action:
+   * {@code done_start} and {@code done_stop} (empty when nothing was recorded).
+   */
+  public static String csv(RunRecord run, List<CrewAction> actions) {
+    java.time.ZoneId zone = java.time.ZoneId.of(run.zoneId());
     JsonNode plan = parsePlan(run);
     StringWriter out = new StringWriter();
     try (CSVPrinter p = new CSVPrinter(out, CSVFormat.DEFAULT.builder()
@@ -81,7 +91,7 @@ public final class RunReport {
             b.path("crop").asText(""), b.path("stage").asText(""), b.path("status").asText(""),
             b.path("risk").asText(""));
         if (b.path("actions").isEmpty()) {
-          p.printRecord(concat(head, List.of("none", "", "", "", "", firstRule)));
+          p.printRecord(concat(head, List.of("none", "", "", "", "", firstRule, "", "")));
         }
         for (JsonNode a : b.path("actions")) {
           boolean cover = "cover".equals(a.path("method").asText());
@@ -89,7 +99,9 @@ public final class RunReport {
               a.path(cover ? "deploy_start" : "start").asText(""),
               a.path(cover ? "remove" : "stop").asText(""),
               a.path("water_m3").isNumber() ? a.path("water_m3").asText() : "",
-              a.path("source").asText(""), firstRule)));
+              a.path("source").asText(""), firstRule,
+              CrewReport.doneTimes(id, a.path("method").asText(""), actions, zone)[0],
+              CrewReport.doneTimes(id, a.path("method").asText(""), actions, zone)[1])));
         }
       }
     } catch (IOException e) {

@@ -62,7 +62,11 @@ final class Schema {
     PROFILE_EDITS("profile_edits", List.of(), col("at", Type.TEXT), col("edited_by", Type.TEXT),
         col("file", Type.TEXT), col("crop", Type.TEXT), nullable("variety", Type.TEXT),
         nullable("stage", Type.TEXT), col("field", Type.TEXT), nullable("before_c", Type.REAL),
-        nullable("after_c", Type.REAL), col("note", Type.TEXT));
+        nullable("after_c", Type.REAL), col("note", Type.TEXT)),
+    CREW_ACTIONS("crew_actions", List.of(), col("at", Type.TEXT), col("recorded_at", Type.TEXT),
+        col("night", Type.TEXT), col("block_id", Type.TEXT), col("kind", Type.TEXT),
+        col("done_by", Type.TEXT), col("note", Type.TEXT), nullable("advised_run_id", Type.TEXT),
+        nullable("warning", Type.TEXT));
 
     final String sql;
     final List<String> constraints;
@@ -119,7 +123,8 @@ final class Schema {
 
   /** Add a step at the end; never change one that has been released. */
   static final List<Migration> MIGRATIONS = List.of(
-      new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()));
+      new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()),
+      new Migration(2, "what the crew did: sprinklers and covers on and off", v2()));
 
   static int latestVersion() {
     return MIGRATIONS.get(MIGRATIONS.size() - 1).version();
@@ -140,6 +145,14 @@ final class Schema {
         "profile_edits")) {
       s.addAll(appendOnly(t));
     }
+    return List.copyOf(s);
+  }
+
+  private static List<String> v2() {
+    List<String> s = new ArrayList<>();
+    s.add(Table.CREW_ACTIONS.createSql());
+    s.add("CREATE INDEX crew_actions_by_night ON crew_actions (night, block_id, at)");
+    s.addAll(appendOnly("crew_actions"));
     return List.copyOf(s);
   }
 

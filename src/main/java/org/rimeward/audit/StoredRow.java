@@ -46,6 +46,8 @@ record StoredRow(Table table, long seq, List<Object> values) {
           + r.integer("fire_seq") + " " + r.text("rule_id");
       case PROFILE_EDITS -> "profile edit at " + r.text("at") + " of " + r.text("file") + " "
           + r.text("field");
+      case CREW_ACTIONS -> "crew action " + r.text("kind") + " on " + r.text("block_id") + " at "
+          + r.text("at");
     };
   }
 

@@ -3,6 +3,7 @@ package org.rimeward.cli;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
 import org.rimeward.audit.RunReport;
 import org.rimeward.io.AtomicFiles;
@@ -17,7 +18,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "export", mixinStandardHelpOptions = true,
     versionProvider = RimewardCommand.Version.class,
     description = "Export one recorded run for an insurer or a report: JSON (as 'show --json') or"
-        + " CSV with one row per block action.")
+        + " CSV with one row per block action, with what the crew recorded beside it (done_start,"
+        + " done_stop).")
 final class AuditExportCommand implements Callable<Integer> {
   enum Format { json, csv }
 
@@ -38,8 +40,11 @@ final class AuditExportCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     return AuditCommand.guarded(spec, () -> {
-      RunRecord rec = AuditShowCommand.load(where, run);
-      String text = format == Format.csv ? RunReport.csv(rec) : RunReport.json(rec);
+      AuditShowCommand.Loaded l = AuditShowCommand.loadWithActions(where, run);
+      RunRecord rec = l.run();
+      String text = format == Format.csv ? RunReport.csv(rec, l.actions())
+          : CrewReport.withActions(RunReport.json(rec), "crew_actions", l.actions(),
+              java.time.ZoneId.of(rec.zoneId()));
       if (output == null) {
         spec.commandLine().getOut().print(text);
         return Main.OK;

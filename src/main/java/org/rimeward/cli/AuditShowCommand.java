@@ -2,6 +2,8 @@ package org.rimeward.cli;
 
 import java.util.concurrent.Callable;
 import org.rimeward.audit.AuditStore;
+import org.rimeward.audit.CrewAction;
+import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
 import org.rimeward.audit.RunReport;
 import org.rimeward.io.BadInputException;
@@ -24,17 +26,31 @@ final class AuditShowCommand implements Callable<Integer> {
   String run;
 
   @Option(names = "--json", description = "Print the recorded plan with the run's metadata and"
-      + " input hashes as JSON.")
+      + " input hashes, and the crew's recorded actions of the night (crew_actions), as JSON.")
   boolean json;
 
   @Override
   public Integer call() throws Exception {
     return AuditCommand.guarded(spec, () -> {
-      RunRecord rec = load(where, run);
-      spec.commandLine().getOut().print(json ? RunReport.json(rec)
-          : RunReport.text(rec, AuditCommand.units(spec)));
+      Loaded l = loadWithActions(where, run);
+      spec.commandLine().getOut().print(json
+          ? CrewReport.withActions(RunReport.json(l.run()), "crew_actions", l.actions(),
+              java.time.ZoneId.of(l.run().zoneId()))
+          : RunReport.text(l.run(), AuditCommand.units(spec))
+              + CrewReport.text(l.run(), l.actions(), java.util.Optional.empty()));
       return Main.OK;
     });
+  }
+
+  /** A run and the crew's actions of its night. */
+  record Loaded(RunRecord run, java.util.List<CrewAction> actions) {}
+
+  static Loaded loadWithActions(AuditCommand.Location where, String run) {
+    try (AuditStore store = where.openForReading()) {
+      RunRecord rec = store.loadRun(run).orElseThrow(() -> new BadInputException("RUN: no run '"
+          + run + "' in " + where.file() + "; list them with 'rimeward audit list'"));
+      return new Loaded(rec, store.listActions(rec.night(), java.util.Optional.empty()));
+    }
   }
 
   static RunRecord load(AuditCommand.Location where, String run) {

@@ -2,10 +2,13 @@ package org.rimeward.cli;
 
 import java.time.LocalDate;
 import java.util.Comparator;
+import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.rimeward.audit.AuditStore;
 import org.rimeward.audit.BlockWhy;
+import org.rimeward.audit.CrewAction;
+import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
 import org.rimeward.audit.RunSummary;
 import org.rimeward.io.BadInputException;
@@ -44,18 +47,22 @@ final class AuditWhyCommand implements Callable<Integer> {
   }
 
   @Option(names = "--json", description = "Print JSON: run, night, block, status, risk, rules"
-      + " (seq, id, kind, explanation, values) and inputs.")
+      + " (seq, id, kind, explanation, values) inputs, and what the crew recorded as done (done).")
   boolean json;
 
   @Override
   public Integer call() throws Exception {
     return AuditCommand.guarded(spec, () -> {
       RunRecord rec;
+      List<CrewAction> done;
       try (AuditStore store = where.openForReading()) {
         rec = find(store);
+        done = store.listActions(rec.night(), Optional.of(block));
       }
       BlockWhy why = BlockWhy.of(rec, block);
-      spec.commandLine().getOut().print(json ? why.json() : why.text(AuditCommand.units(spec)));
+      spec.commandLine().getOut().print(json
+          ? CrewReport.withActions(why.json(), "done", done, java.time.ZoneId.of(rec.zoneId()))
+          : why.text(AuditCommand.units(spec)) + CrewReport.text(rec, done, Optional.of(block)));
       return Main.OK;
     });
   }

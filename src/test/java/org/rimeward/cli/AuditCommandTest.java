@@ -128,7 +128,8 @@ class AuditCommandTest {
     try (CSVParser p = CSVParser.parse(Files.readString(out),
         CSVFormat.DEFAULT.builder().setHeader().get())) {
       assertThat(p.getHeaderNames()).containsExactly("run_id", "night", "block", "crop", "stage",
-          "status", "risk", "method", "start", "stop", "water_m3", "source", "first_rule");
+          "status", "risk", "method", "start", "stop", "water_m3", "source", "first_rule",
+          "done_start", "done_stop");
       var rows = p.getRecords();
       assertThat(rows).hasSize(3);
       CSVRecord gala = rows.get(0);

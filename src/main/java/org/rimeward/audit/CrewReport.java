@@ -1,0 +1,140 @@
+package org.rimeward.audit;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.time.Instant;
+import java.time.OffsetDateTime;
+import java.time.ZoneId;
+import java.time.format.DateTimeFormatter;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+
+/**
+ * What was advised beside what was done: a run's planned actions next to the crew's recorded
+ * actions of the same night, with times. The evidence an insurer asks for.
+ */
+public final class CrewReport {
+  private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+  private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
+
+  private CrewReport() {}
+
+  /** The text section, for every block of the run or only {@code blockId}. */
+  public static String text(RunRecord run, List<CrewAction> actions, Optional<String> blockId) {
+    ZoneId zone = ZoneId.of(run.zoneId());
+    StringBuilder s = new StringBuilder("\nAdvised and done (night of " + run.night() + "):\n");
+    boolean any = false;
+    for (RecordedBlock b : run.blocks()) {
+      if (blockId.isPresent() && !blockId.get().equals(b.blockId())) {
+        continue;
+      }
+      List<CrewAction> done = actions.stream().filter(a -> a.blockId().equals(b.blockId())).toList();
+      JsonNode decision = read(b.decisionJson());
+      if (done.isEmpty() && decision.path("actions").isEmpty()) {
+        continue;
+      }
+      any = true;
+      s.append("  ").append(b.blockId()).append('\n');
+      for (JsonNode a : decision.path("actions")) {
+        s.append("    advised: ").append(advised(a, zone)).append('\n');
+      }
+      if (decision.path("actions").isEmpty()) {
+        s.append("    advised: nothing\n");
+      }
+      for (CrewAction a : done) {
+        s.append("    done:    ").append(CLOCK.format(a.at().atZone(zone))).append(' ')
+            .append(a.kind().word()).append(" by ").append(a.by());
+        if (!a.note().isEmpty()) {
+          s.append(" (").append(a.note()).append(')');
+        }
+        s.append('\n');
+        a.warning().ifPresent(w -> s.append("             warning: ").append(w).append('\n'));
+      }
+      if (done.isEmpty()) {
+        s.append("    done:    nothing recorded ('rimeward action' records it)\n");
+      }
+    }
+    if (!any) {
+      s.append("  nothing advised and nothing recorded\n");
+    }
+    return s.toString();
+  }
+
+  /** The crew's actions as a JSON array, for the JSON outputs. */
+  public static ArrayNode json(List<CrewAction> actions, ZoneId zone) {
+    ArrayNode arr = JSON.createArrayNode();
+    for (CrewAction a : actions) {
+      ObjectNode n = arr.addObject();
+      n.put("block", a.blockId());
+      n.put("kind", a.kind().word());
+      n.put("at", OffsetDateTime.ofInstant(a.at(), zone).toString());
+      n.put("by", a.by());
+      n.put("note", a.note());
+      n.put("recorded_at", a.recordedAt().toString());
+      n.put("advised_run", a.advisedRunId().orElse(null));
+      n.put("warning", a.warning().orElse(null));
+    }
+    return arr;
+  }
+
+  /** {@code json} (an object) with the crew's actions added under {@code key}. */
+  public static String withActions(String json, String key, List<CrewAction> actions, ZoneId zone) {
+    try {
+      ObjectNode root = (ObjectNode) JSON.readTree(json);
+      root.set(key, json(actions, zone));
+      return JSON.writeValueAsString(root) + "\n";
+    } catch (JsonProcessingException | ClassCastException e) {
+      throw new IllegalStateException("could not add the crew's actions to the JSON", e);
+    }
+  }
+
+  /** When the crew started and ended what the advised action asks for: for the export's columns. */
+  public static String[] doneTimes(String blockId, String method, List<CrewAction> actions, ZoneId zone) {
+    boolean sprinkle = "sprinkle".equals(method);
+    Optional<Instant> on = actions.stream().filter(a -> a.blockId().equals(blockId)
+        && a.kind() == (sprinkle ? CrewAction.Kind.SPRINKLING_ON : CrewAction.Kind.COVERS_ON))
+        .map(CrewAction::at).min(Instant::compareTo);
+    Optional<Instant> off = actions.stream().filter(a -> a.blockId().equals(blockId)
+        && a.kind() == (sprinkle ? CrewAction.Kind.SPRINKLING_OFF : CrewAction.Kind.COVERS_OFF))
+        .map(CrewAction::at).max(Instant::compareTo);
+    return new String[] {on.map(t -> OffsetDateTime.ofInstant(t, zone).toString()).orElse(""),
+        off.map(t -> OffsetDateTime.ofInstant(t, zone).toString()).orElse("")};
+  }
+
+  private static String advised(JsonNode a, ZoneId zone) {
+    if ("sprinkle".equals(a.path("method").asText())) {
+      return "sprinkle " + clock(a.path("start"), zone) + " → " + clock(a.path("stop"), zone)
+          + (a.path("source").isTextual() ? " from " + a.path("source").asText() : "");
+    }
+    if ("cover".equals(a.path("method").asText())) {
+      return "covers on from " + clock(a.path("deploy_start"), zone) + " (by "
+          + clock(a.path("deploy_by"), zone) + "), off at " + clock(a.path("remove"), zone);
+    }
+    return a.toString();
+  }
+
+  private static String clock(JsonNode n, ZoneId zone) {
+    if (!n.isTextual()) {
+      return "?";
+    }
+    try {
+      return CLOCK.format(OffsetDateTime.parse(n.asText()).atZoneSameInstant(zone));
+    } catch (java.time.format.DateTimeParseException e) {
+      return n.asText();
+    }
+  }
+
+  private static JsonNode read(String json) {
+    try {
+      return JSON.readTree(json);
+    } catch (JsonProcessingException e) {
+      throw new AuditIntegrityException("a recorded decision cannot be read back; run 'rimeward"
+          + " audit verify'");
+    }
+  }
+}
