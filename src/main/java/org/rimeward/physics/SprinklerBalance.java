@@ -1,38 +1,59 @@
 package org.rimeward.physics;
 
+import java.util.function.DoubleUnaryOperator;
+
 /**
- * Over-plant sprinkling: the application rate that keeps ice-coated buds at 0 °C, and the lowest
- * air temperature a given rate holds.
+ * Over-plant sprinkling: the application rate that keeps iced buds at 0 °C, and the lowest air
+ * temperature a given rate holds. An energy balance at bud and twig scale, derived from heat
+ * transfer rather than fitted to one rule of thumb; the one calibration constant is
+ * {@link #GROUND_AREA_FACTOR}.
  *
- * <p>Per m² of iced plant surface at 0 °C the loss is convection h·(0 − T_a), evaporation of the
- * water film h·(e_i(0) − e_a)/γ_v (Lewis relation: mass transfer from h with Le ≈ 1,
- * γ_v = c_p P/(0.622 L_v)), and net long-wave loss to a clear sky over the upper half and to
- * surroundings at air temperature over the lower half. h is the wind-convection coefficient
- * h = 5.7 + 3.8 u of McAdams (1954, after Jürges), as given by Duffie &amp; Beckman, for 0…5 m/s:
- * sprinkling is not advised above about 4.5 m/s (10 mph; Virginia Tech tree-fruit guidance), so the
- * method stops at 5 m/s rather than extrapolate. The wind inside a sprinkled canopy is taken as
- * {@link #CANOPY_WIND_RATIO} = 0.5 of the open 2 m wind, the mid-canopy value of an exponential
- * in-canopy wind profile (Cionco 1965, attenuation coefficient about 1.4; from memory). The sky is
- * taken as clear (a radiation frost): the worst case. The loss is met by the latent heat of freezing
- * (0.334 MJ/kg) plus the sensible heat of the water from its supply temperature to 0 °C.
+ * <p>The protected parts are ice-coated cylinders of {@link #ICED_DIAMETER_M} = 10 mm across the
+ * wind: the middle of the 5–20 mm of buds, bud clusters, spurs and twigs under a few millimetres
+ * of ice (an assumption, stated; the need scales about as d^−½, so 5 mm needs about 1.2 times and
+ * 20 mm about 0.8 times as much). Per m² of ice surface held at 0 °C the losses are:
+ * <ul>
+ *   <li>convection h·(0 − T_a), h from {@code Convection.cylinderWPerM2K}: Churchill &amp;
+ *       Bernstein (1977) in cross flow with the field-turbulence factor 1.4 of Campbell &amp; Norman
+ *       (1998, ch. 7) that the bud model uses, combined with Churchill &amp; Chu (1975) free
+ *       convection so calm air stays finite;</li>
+ *   <li>evaporation from the wet ice, λ_v E = h (e_s(0) − e_a) / (γ Le^⅔), the Lewis relation in
+ *       its Chilton–Colburn form with Le = {@link #LEWIS_NUMBER}, γ = c_p P / (0.622 λ_v) at the
+ *       site's pressure, e_a from the dew point (Alduchov &amp; Eskridge 1996). The film is liquid
+ *       water at 0 °C, so λ_v = 2.501 MJ/kg; where the film dries the ice sublimates (λ_s = 2.834
+ *       MJ/kg) and cools below 0 °C, which is what the rate must prevent;</li>
+ *   <li>net long-wave, ε σ T_0⁴ − ε (½ L↓_sky + ½ σ T_a⁴): the upper half sees the sky (Brutsaert
+ *       1975 with the Unsworth &amp; Monteith 1975 cloud correction), the lower half ground and
+ *       wood at air temperature.</li>
+ * </ul>
+ * The gains per kg of water are the latent heat of fusion (0.334 MJ/kg) and the sensible heat of
+ * the supply water down to 0 °C.
  *
- * <p>Not all applied water freezes on the buds (drift, runoff, water landing on the ground) and a
- * canopy has more or less exchange surface than its ground area, so the rate per ground area is
- * the loss times {@link #CANOPY_FACTOR}, one documented calibration constant. It is set so that,
- * with a dry frost-night dew point 3 °C below the air, "no wind" = 0.5 m/s and "light wind" =
- * 2 m/s, the results fall inside the published rules of thumb: 0.12–0.15 in/h (3.0–3.8 mm/h)
- * protects to about 22 °F (−5.6 °C) with no wind and 24–25 °F (−4.4 to −3.9 °C) with a light wind
- * (Longstroth 2012, MSU Extension), and 70–80 gpm/acre (3.9–4.5 mm/h) protects trees to about
- * 24 °F (−4.4 °C) (R. G. Evans in Good Fruit Grower, "Frost control options"), here at a breezy
- * 3.5 m/s since that article names no wind. The pair of MSU figures limits how fast the need may
- * rise between 0.5 and 2 m/s; with this convection law the need at 4.5 m/s is about 1.5 times the
- * calm need, gentler than older wind tables (UF/IFAS Circ. 287, not verified here).
+ * <p>Wind is the wind at the buds, taken at 2 m: callers bring a forecast's wind from its height
+ * with FAO-56 Eq. 47 ({@link Wind#at2mMs}), the log profile over short grass
+ * (d = 0.08 m, z0 = 0.0148 m). The balance holds for any wind from calm to {@link #MAX_WIND_MS};
+ * whether sprinkling is advised in a wind is for the rules to decide, not this class.
  */
 public final class SprinklerBalance {
-  /** Ground-area rate per unit of iced-surface water need: exchange area over freezing efficiency. */
-  public static final double CANOPY_FACTOR = 2.4;
-  /** In-canopy wind over open 2 m wind; see the class comment. */
-  public static final double CANOPY_WIND_RATIO = 0.5;
+  /** Representative diameter of an iced bud cluster, spur or twig, m; see the class comment. */
+  public static final double ICED_DIAMETER_M = 0.010;
+
+  /**
+   * Ground-area rate over the ice-surface freezing need: exchange surface per ground area over the
+   * share of water that freezes on the plant. The one calibration constant, fitted as the
+   * log-mean ratio of table to model over the 12 cells from 18 to 26 °F of the UF/IFAS Circ. 287
+   * table as printed by MSU Extension ("Using your sprinkler system to protect blueberries from
+   * freezes", wind 0–1, 2–4, 5–8 mph taken as 0.5, 3, 6.5 mph at 10 m; dew point 3 °C below the
+   * air; water at 5 °C). The fit gives 1.41; see {@code SprinklerRateTablesTest}.
+   */
+  public static final double GROUND_AREA_FACTOR = 1.4;
+
+  /** Lewis number of water vapour in air near 0 °C, α/D = 1.87e-5/2.22e-5 (Incropera &amp; DeWitt, from memory). */
+  public static final double LEWIS_NUMBER = 0.84;
+
+  /** Highest wind at 2 m the balance takes, m/s (a hurricane; the correlation holds further). */
+  public static final double MAX_WIND_MS = 60;
+
   /** Latent heat of fusion of water at 0 °C, J/kg (Rogers &amp; Yau; FAO 2005 uses 0.334 MJ/kg). */
   static final double LATENT_FUSION_J_PER_KG = 3.34e5;
   /** Latent heat of vaporisation at 0 °C, J/kg (Rogers &amp; Yau, L_v = 2.501 MJ/kg). */
@@ -46,87 +67,117 @@ public final class SprinklerBalance {
 
   private SprinklerBalance() {}
 
+  /** Heat lost by one m² of wet ice at 0 °C, W/m², by way of loss; negative is a gain. */
+  record IceLoss(double convectionWm2, double evaporationWm2, double longWaveWm2) {
+    double totalWm2() {
+      return convectionWm2 + evaporationWm2 + longWaveWm2;
+    }
+  }
+
+  /** How far a rate protects: see {@link #protection}. */
+  public enum Limit {
+    /** The rate holds iced buds at 0 °C down to {@link Protection#airTempC}. */
+    AIR_TEMPERATURE,
+    /**
+     * The rate holds even with the air down at its dew point; the air cannot cool further without
+     * the dew point falling too, so where the rate gives out depends on a lower dew point.
+     */
+    DEW_POINT,
+    /** The rate falls short even with the air at 0 °C: it keeps no ice wet in this air and wind. */
+    FREEZING
+  }
+
+  /** The outcome of {@link #protection}: the limit and the air temperature it sits at, °C. */
+  public record Protection(Limit limit, double airTempC) {}
+
   /**
-   * Over-plant application rate, mm/h of water over the ground, that keeps iced buds at 0 °C on a
-   * clear night, from air temperature (−15…5 °C), dew point (−40 °C…air), wind at 2 m (0…5 m/s),
-   * supply water temperature (0…30 °C) and pressure (50…110 kPa); energy balance after FAO 2005
-   * (Snyder &amp; de Melo-Abreu, ch. 7) with McAdams (1954) convection, calibrated by
-   * {@link #CANOPY_FACTOR} to Longstroth (2012, MSU) and Evans (Good Fruit Grower). Zero when the
-   * iced surface loses no heat.
+   * Over-plant application rate, mm/h of water over the ground, that keeps iced buds at 0 °C under
+   * a clear sky (the radiation-frost worst case); see
+   * {@link #requiredRateMmH(double, double, double, double, double, double)}.
    */
   public static double requiredRateMmH(double airTempC, double dewPointC, double windMs,
       double waterTempC, double pressureKPa) {
-    Ranges.check("air temperature", airTempC, -15, 5, "°C");
-    Ranges.check("dew point", dewPointC, -40, 50, "°C");
-    Ranges.checkDewPoint(airTempC, dewPointC);
-    if (windMs > 5) {
-      throw new OutOfRangeException("wind speed at 2 m " + Ranges.fmt(windMs) + " m/s is above the"
-          + " 5 m/s this sprinkler balance is valid for; over-plant sprinkling is not advised above"
-          + " about 4.5 m/s (10 mph), so plan another method for this wind");
-    }
-    Ranges.check("wind speed at 2 m", windMs, 0, 5, "m/s");
-    Ranges.check("water temperature", waterTempC, 0, 30, "°C");
-    Ranges.check("pressure", pressureKPa, 50, 110, "kPa");
-    double lossWm2 = iceSurfaceLossWm2(airTempC, dewPointC, windMs, pressureKPa);
-    if (lossWm2 <= 0) {
-      return 0;
-    }
-    double heatPerKg = LATENT_FUSION_J_PER_KG + WATER_HEAT_CAPACITY * waterTempC;
-    return CANOPY_FACTOR * lossWm2 / heatPerKg * 3600.0;
+    return requiredRateMmH(airTempC, dewPointC, windMs, waterTempC, pressureKPa, 0);
   }
 
   /**
-   * Lowest air temperature, °C, at which a rate in mm/h (0.1…25) keeps iced buds at 0 °C, for a
-   * dew point (−15…5 °C), wind at 2 m (0…5 m/s), water temperature (0…30 °C) and pressure
-   * (50…110 kPa); inverse of {@link #requiredRateMmH} by bisection to 0.001 °C. The answer cannot be
-   * below the dew point (the air would be saturated there); a rate that holds even there, or that
-   * fails even at 0 °C air, is reported as out of range rather than given a made-up limit.
+   * Over-plant application rate, mm/h of water over the ground, that keeps iced buds at 0 °C, from
+   * air temperature (−40…20 °C), dew point (−40 °C…air), wind at 2 m (0…{@link #MAX_WIND_MS}
+   * m/s), supply water temperature (0…40 °C), pressure (50…110 kPa) and cloud cover (0…100 %);
+   * the energy balance of the class comment times {@link #GROUND_AREA_FACTOR}. Zero when the
+   * iced surface loses no heat; finite for every input in range.
    */
-  public static double protectsToC(double rateMmH, double dewPointC, double windMs, double waterTempC,
-      double pressureKPa) {
-    Ranges.check("application rate", rateMmH, 0.1, 25, "mm/h");
-    Ranges.check("dew point", dewPointC, -15, 5, "°C");
-    double low = dewPointC;
-    double high = Math.max(0.0, dewPointC);
-    if (requiredRateMmH(low, dewPointC, windMs, waterTempC, pressureKPa) <= rateMmH) {
-      throw new OutOfRangeException(String.format(java.util.Locale.ROOT,
-          "%.2f mm/h holds the buds at 0 °C even when the air falls to its dew point (%.1f °C); the"
-              + " limit lies below that, so give the lower dew point expected later in the night",
-          rateMmH, dewPointC));
+  public static double requiredRateMmH(double airTempC, double dewPointC, double windMs,
+      double waterTempC, double pressureKPa, double cloudPct) {
+    checkConditions(airTempC, dewPointC, windMs, waterTempC, pressureKPa, cloudPct);
+    return rateFor(iceLoss(airTempC, dewPointC, windMs, pressureKPa, cloudPct), waterTempC);
+  }
+
+  /**
+   * How far a rate in mm/h (0.01…200) protects iced buds, for a dew point (−40…20 °C), wind at
+   * 2 m, water temperature, pressure and cloud cover as for {@link #requiredRateMmH}: the lowest
+   * air temperature, °C, at which the rate still meets the need (bisection to 0.001 °C), or, when
+   * there is no such temperature between the dew point and 0 °C, which of the two ends limits it.
+   * The need rises as the air cools at a fixed dew point, so the answer is unique.
+   */
+  public static Protection protection(double rateMmH, double dewPointC, double windMs,
+      double waterTempC, double pressureKPa, double cloudPct) {
+    Ranges.check("application rate", rateMmH, 0.01, 200, "mm/h");
+    Ranges.check("dew point", dewPointC, -40, 20, "°C");
+    DoubleUnaryOperator need = air -> requiredRateMmH(air, dewPointC, windMs, waterTempC,
+        pressureKPa, cloudPct);
+    if (need.applyAsDouble(dewPointC) <= rateMmH) {
+      return new Protection(Limit.DEW_POINT, dewPointC);
     }
-    if (requiredRateMmH(high, dewPointC, windMs, waterTempC, pressureKPa) > rateMmH) {
-      throw new OutOfRangeException(String.format(java.util.Locale.ROOT,
-          "%.2f mm/h cannot keep iced buds at 0 °C even with the air at %.1f °C in this wind; use a"
-              + " higher rate", rateMmH, high));
+    if (need.applyAsDouble(0.0) > rateMmH) {
+      return new Protection(Limit.FREEZING, 0.0);
     }
-    double lo = low;
-    double hi = high;
+    double lo = dewPointC;
+    double hi = 0.0;
     while (hi - lo > 1e-3) {
       double mid = 0.5 * (lo + hi);
-      if (requiredRateMmH(mid, dewPointC, windMs, waterTempC, pressureKPa) > rateMmH) {
+      if (need.applyAsDouble(mid) > rateMmH) {
         lo = mid;
       } else {
         hi = mid;
       }
     }
-    return 0.5 * (lo + hi);
+    return new Protection(Limit.AIR_TEMPERATURE, 0.5 * (lo + hi));
   }
 
-  /** McAdams (1954) wind-convection coefficient, W m⁻² K⁻¹, valid 0…5 m/s. */
-  static double convectionWPerM2K(double windMs) {
-    return 5.7 + 3.8 * windMs;
+  static void checkConditions(double airTempC, double dewPointC, double windMs, double waterTempC,
+      double pressureKPa, double cloudPct) {
+    Ranges.check("air temperature", airTempC, -40, 20, "°C");
+    Ranges.check("dew point", dewPointC, -40, 20, "°C");
+    Ranges.checkDewPoint(airTempC, dewPointC);
+    Ranges.check("wind speed at 2 m", windMs, 0, MAX_WIND_MS, "m/s");
+    Ranges.check("water temperature", waterTempC, 0, 40, "°C");
+    Ranges.check("pressure", pressureKPa, 50, 110, "kPa");
+    Ranges.check("cloud cover", cloudPct, 0, 100, "%");
   }
 
-  /** Heat loss, W/m², of an iced plant surface held at 0 °C. */
-  static double iceSurfaceLossWm2(double airTempC, double dewPointC, double windMs, double pressureKPa) {
-    double h = convectionWPerM2K(CANOPY_WIND_RATIO * windMs);
-    double sensible = h * (0.0 - airTempC);
+  static double rateFor(IceLoss loss, double waterTempC) {
+    double lossWm2 = loss.totalWm2();
+    if (lossWm2 <= 0) {
+      return 0;
+    }
+    double heatPerKg = LATENT_FUSION_J_PER_KG + WATER_HEAT_CAPACITY * waterTempC;
+    // 1 kg of water over 1 m² of ground is 1 mm.
+    return GROUND_AREA_FACTOR * lossWm2 / heatPerKg * 3600.0;
+  }
+
+  /** Heat loss of one m² of wet ice at 0 °C on an iced twig; see the class comment. */
+  static IceLoss iceLoss(double airTempC, double dewPointC, double windMs, double pressureKPa,
+      double cloudPct) {
+    double h = Convection.cylinderWPerM2K(ICED_DIAMETER_M, windMs, airTempC, 0.0 - airTempC);
+    double convection = h * (0.0 - airTempC);
     double gammaKPaPerK = AIR_HEAT_CAPACITY * pressureKPa / (0.622 * LATENT_VAPORISATION_J_PER_KG);
     double ea = Psychrometrics.vapourPressureFromDewPointKPa(dewPointC);
-    double latent = h * (Psychrometrics.saturationOverIceKPa(0.0) - ea) / gammaKPaPerK;
-    double sky = Sky.downwardLongWaveWm2(airTempC, dewPointC, 0);
+    double evaporation = h * (Psychrometrics.saturationOverIceKPa(0.0) - ea)
+        / (gammaKPaPerK * Math.pow(LEWIS_NUMBER, 2.0 / 3.0));
+    double sky = Sky.downwardLongWaveWm2(airTempC, dewPointC, cloudPct);
     double longWave = ICE_EMISSIVITY
         * (Sky.blackBodyWm2(0.0) - 0.5 * sky - 0.5 * Sky.blackBodyWm2(airTempC));
-    return sensible + latent + longWave;
+    return new IceLoss(convection, evaporation, longWave);
   }
 }

@@ -99,17 +99,48 @@ class CalcCommandTest {
 
   @Test
   void rateJsonBothWays() throws Exception {
-    // Longstroth (2012), MSU: 3.0-3.8 mm/h protects to about 22 °F (-5.6 °C) with no wind.
-    JsonNode need = json("calc", "rate", "--temp", "22F", "--dew-point", "-8.6C", "--wind", "0.5 m/s", "--json");
-    assertThat(keys(need)).containsExactly("required_rate_mm_h");
-    assertThat(need.get("required_rate_mm_h").asDouble()).isBetween(3.0, 3.8);
-    JsonNode to = json("calc", "rate", "--rate", "0.134 in/h", "--dew-point", "-8.6C", "--wind", "1.1 mph", "--json");
-    assertThat(keys(to)).containsExactly("protects_to_c");
-    assertThat(to.get("protects_to_c").asDouble()).isCloseTo(-5.6, within(0.56));
+    // UF/IFAS Circ. 287 as printed by MSU Extension: 0.16 in/h (4.06 mm/h) at 22 °F, wind 0-1 mph.
+    JsonNode need = json("calc", "rate", "--temp", "22F", "--dew-point", "-8.6C", "--wind", "0.5 mph", "--json");
+    assertThat(keys(need)).containsExactly("required_rate_mm_h", "wind_2m_ms");
+    assertThat(need.get("required_rate_mm_h").asDouble()).isCloseTo(4.06, within(0.3 * 4.06));
+    assertThat(need.get("wind_2m_ms").asDouble()).as("FAO-56 Eq. 47 from 10 m").isCloseTo(0.167, within(0.01));
+    JsonNode to = json("calc", "rate", "--rate", "0.16 in/h", "--dew-point", "-8.6C", "--wind", "0.5 mph", "--json");
+    assertThat(keys(to)).containsExactly("protects_to_c", "limited_by", "wind_2m_ms");
+    assertThat(to.get("protects_to_c").asDouble()).isCloseTo(-5.6, within(1.7));
+    assertThat(to.get("limited_by").asText()).isEqualTo("air-temperature");
     Cli.Result r = Cli.run("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "2 m/s",
-        "--water-temp", "10", "--elevation", "300 m");
+        "--wind-height", "2 m", "--water-temp", "10", "--elevation", "300 m");
     assertThat(r.exitCode()).as(r.toString()).isEqualTo(Main.OK);
-    assertThat(r.out()).startsWith("required over-plant rate ").contains("mm/h").contains("water 10.0 °C");
+    assertThat(r.out()).startsWith("required over-plant rate ").contains("mm/h").contains("water 10.0 °C")
+        .contains("wind 2.0 m/s at 2 m, 2.0 m/s at 2 m");
+  }
+
+  @Test
+  void rateAnswersInAnyWind() throws Exception {
+    // The need keeps rising with wind; whether to sprinkle in it is a separate question.
+    double at4 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4 m/s", "--json")
+        .get("required_rate_mm_h").asDouble();
+    double at8 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "8 m/s", "--json")
+        .get("required_rate_mm_h").asDouble();
+    double at12 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "12 m/s", "--json")
+        .get("required_rate_mm_h").asDouble();
+    assertThat(at8).isGreaterThan(at4);
+    assertThat(at12).isGreaterThan(at8).isLessThan(100);
+  }
+
+  @Test
+  void rateThatHoldsToTheDewPointSaysSoPlainly() throws Exception {
+    JsonNode n = json("calc", "rate", "--rate", "0.6 in/h", "--dew-point", "26F", "--wind", "1 mph", "--json");
+    assertThat(n.get("protects_to_c").isNull()).isTrue();
+    assertThat(n.get("limited_by").asText()).isEqualTo("dew-point");
+    Cli.Result r = Cli.run("calc", "rate", "--rate", "0.6 in/h", "--dew-point", "26F", "--wind", "1 mph",
+        "--units", "us");
+    assertThat(r.exitCode()).as(r.toString()).isEqualTo(Main.OK);
+    assertThat(r.out()).contains("even with the air down at its dew point, 26.0 °F")
+        .contains("depends on a dew point the night does not reach here").contains("--dew-point");
+    Cli.Result shortRate = Cli.run("calc", "rate", "--rate", "0.5 mm/h", "--dew-point", "-10", "--wind", "20 mph");
+    assertThat(shortRate.exitCode()).as(shortRate.toString()).isEqualTo(Main.OK);
+    assertThat(shortRate.out()).contains("is short even with the air at 0 °C");
   }
 
   @Test
@@ -132,7 +163,7 @@ class CalcCommandTest {
       "unknown zone | calc sun --lat 45 --lon 0 --date 2024-04-01 --zone Mars/Olympus | --zone: 'Mars/Olympus'",
       "bad date | calc sun --lat 45 --lon 0 --date 2024-02-30 --zone UTC | --date: '2024-02-30'",
       "wind without unit | calc bud --temp 0 --dew-point -4 --wind 3 --cloud 0 | --wind: '3' has no unit",
-      "wind too strong for sprinkling | calc rate --temp -4 --dew-point -7 --wind 8m/s | wind speed",
+      "wind height too low | calc rate --temp -4 --dew-point -7 --wind 8m/s --wind-height 0.1m | --wind/--wind-height: measurement height 0.1 m",
       "t90 not below t10 | calc kill --t10 -4 --t90 -3 --temp -3 | must be below",
       "both temp and rate | calc rate --temp -4 --rate 3mm/h --dew-point -7 --wind 1m/s | mutually exclusive",
       "missing humidity | calc air --temp 3 | --dew-point"})
