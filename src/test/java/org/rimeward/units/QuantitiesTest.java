@@ -29,6 +29,8 @@ class QuantitiesTest {
       "2.4 acre-ft, VOLUME, 2960.36",
       "1.5 oz/yd2, AREAL_MASS, 50.86",
       "1013.25 hPa, PRESSURE, 101.325",
+      "9 ML, VOLUME, 9000",
+      "−2.5C, TEMPERATURE, -2.5",
   })
   void convertsToTheCanonicalUnit(String text, Dimension dim, double expected) {
     assertThat(Quantities.parse(text, dim, "x")).isCloseTo(expected, within(0.01));
@@ -61,5 +63,39 @@ class QuantitiesTest {
     // 72 m3/h = 317 US gal/min (NIST SP 811: 1 gal = 3.785411784 L).
     assertThat(Quantities.format(72, Dimension.FLOW, UnitSystem.US, 0)).isEqualTo("317 gpm");
     assertThat(Quantities.format(3785.411784, Dimension.VOLUME, UnitSystem.US, 0)).isEqualTo("1000000 gal");
+  }
+
+  @Test
+  void lowerCaseMlIsNotMegalitres() {
+    // "ml" reads as millilitres to most people, a million times less than ML (megalitres).
+    assertThatThrownBy(() -> Quantities.parse("9 ml", Dimension.VOLUME, "volume"))
+        .isInstanceOf(QuantityException.class).hasMessageContaining("unit 'ml'")
+        .hasMessageContaining("9 ML");
+  }
+
+  @Test
+  void decimalCommaSaysUseADecimalPoint() {
+    assertThatThrownBy(() -> Quantities.parse("-2,5C", Dimension.TEMPERATURE, "--air"))
+        .isInstanceOf(QuantityException.class)
+        .hasMessage("--air: '-2,5C' has a comma in the number; use a decimal point and no thousands"
+            + " separator, e.g. -2.5C instead of -2,5C");
+  }
+
+  @Test
+  void temperaturesBelowAbsoluteZeroAreRefusedInEveryUnit() {
+    // Absolute zero: 0 K = -273.15 °C = -459.67 °F (NIST SP 811 B.9, exact by definition).
+    assertThat(Quantities.parse("0 K", Dimension.TEMPERATURE, "t")).isEqualTo(-273.15);
+    for (String below : new String[] {"-5K", "-274C", "-460F"}) {
+      assertThatThrownBy(() -> Quantities.parse(below, Dimension.TEMPERATURE, "t"))
+          .as(below).hasMessageContaining("below absolute zero");
+    }
+  }
+
+  @Test
+  void usSymbolsComeFromTheOneUnitTable() {
+    assertThat(Quantities.symbol(Dimension.VOLUME, UnitSystem.US)).isEqualTo("gal");
+    assertThat(Quantities.symbol(Dimension.FLOW, UnitSystem.US)).isEqualTo("gpm");
+    assertThat(Quantities.symbol(Dimension.PRESSURE, UnitSystem.US)).isEqualTo("kPa");
+    assertThat(Quantities.format(-2.0, Dimension.TEMPERATURE, UnitSystem.US, 1)).isEqualTo("28.4 °F");
   }
 }
