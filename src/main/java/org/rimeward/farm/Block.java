@@ -40,6 +40,12 @@ public record Block(
 
   /** Largest cold-air offset accepted either way, °C. */
   public static final double MAX_COLD_AIR_OFFSET_C = 10.0;
+  /**
+   * Largest block accepted, ha. A block is what one decision covers (one stage, one sprinkler
+   * set, one cover crew); real ones are a few to some tens of hectares (common practice). A limit
+   * far above that still catches a slipped decimal point: 4500 ha is more likely 4.5 ha.
+   */
+  public static final double MAX_AREA_HA = 1000.0;
 
   public Block {
     Ids.check("block id", id);

@@ -42,9 +42,9 @@ public record Farm(
     List<Block> blocks,
     SourceRef origin) {
 
-  /** Elevations accepted, m: from the lowest farmland (Dead Sea shore, about −430 m) to 6000 m. */
-  public static final double MIN_ELEVATION_M = -500;
-  public static final double MAX_ELEVATION_M = 6000;
+  /** Elevations accepted, m: the range the station-pressure formula is used over, one range. */
+  public static final double MIN_ELEVATION_M = org.rimeward.physics.Atmosphere.MIN_ELEVATION_M;
+  public static final double MAX_ELEVATION_M = org.rimeward.physics.Atmosphere.MAX_ELEVATION_M;
 
   public Farm {
     if (name == null || name.isBlank()) {

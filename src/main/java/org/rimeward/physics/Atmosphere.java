@@ -5,6 +5,14 @@ public final class Atmosphere {
   /** Sea-level standard pressure used by FAO-56 Eq. 7, kPa. */
   public static final double SEA_LEVEL_KPA = 101.3;
 
+  /**
+   * Elevations the pressure formula is used over, m: from the lowest farmland (Dead Sea shore,
+   * about −430 m) to 4500 m. The farm file accepts exactly this range, so no elevation it
+   * accepts is refused later.
+   */
+  public static final double MIN_ELEVATION_M = -420;
+  public static final double MAX_ELEVATION_M = 4500;
+
   private Atmosphere() {}
 
   /**
@@ -12,7 +20,7 @@ public final class Atmosphere {
    * P = 101.3 ((293 − 0.0065 z)/293)^5.26.
    */
   public static double stationPressureKPa(double elevationM) {
-    Ranges.check("elevation", elevationM, -420, 4500, "m");
+    Ranges.check("elevation", elevationM, MIN_ELEVATION_M, MAX_ELEVATION_M, "m");
     return SEA_LEVEL_KPA * Math.pow((293.0 - 0.0065 * elevationM) / 293.0, 5.26);
   }
 

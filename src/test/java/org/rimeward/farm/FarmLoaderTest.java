@@ -368,7 +368,7 @@ class FarmLoaderTest {
         bad("zero protection", "protection: 2.0C", "protection: 0C", "protection: 0C",
             "must be above 0 and at most 6 °C"),
         bad("duplicate key", "    variety: gala\n", "    variety: gala\n    variety: fuji\n", "variety: fuji",
-            "'variety' is given twice (also on line " + lineOf(METRIC, "variety: gala") + ")"),
+            "'variety' is given twice in the same mapping (first on line " + lineOf(METRIC, "variety: gala") + ")"),
         bad("empty value", "variety: gala", "variety:", "variety:", "blocks[north-gala].variety",
             "expected a value, found nothing"),
         bad("bad block id", "- id: north-gala", "- id: north gala!", "- id: north gala!",
@@ -380,9 +380,30 @@ class FarmLoaderTest {
         bad("cold-air offset too large", "cold_air_offset: -0.5C", "cold_air_offset: -15C",
             "cold_air_offset: -15C", "outside -10 to 10 °C"),
         bad("elevation out of range", "elevation: 243.84 m", "elevation: 9000 m", "elevation: 9000 m",
-            "outside -500 to 6000 m"),
+            "outside -420 to 4500 m"),
         bad("not YAML", "  name: Hillside Orchard\n", "  name: Hillside Orchard\n   bad indent: [\n",
-            "bad indent", "not valid YAML"));
+            "bad indent", "not valid YAML"),
+        // Issue 14's bad inputs: each names the file, the line, the field and what to write.
+        bad("block area that is surely a typo", "area: 4.0468564224 ha", "area: 4500 ha", "area: 4500 ha",
+            "blocks[north-gala].area", "'4500 ha' (4500 ha) is more than 1000 ha", "decimal point"),
+        bad("infinite area", "area: 4.0468564224 ha", "area: 1e999 ha", "area: 1e999 ha",
+            "blocks[north-gala].area", "not a finite number"),
+        bad("area written as YAML infinity", "area: 4.0468564224 ha", "area: .inf", "area: .inf",
+            "blocks[north-gala].area", "is not a quantity"),
+        bad("flow no pump delivers", "max_flow: 45.424941408 m3/h", "max_flow: 4.5e6 m3/h",
+            "max_flow: 4.5e6 m3/h", "water_sources[well].max_flow", "more than 20000 m3/h"),
+        bad("volume no reservoir holds", "volume: 2466.96367509504 m3", "volume: 9e12 m3",
+            "volume: 9e12 m3", "water_sources[pond].volume", "more than 50000000 m3"),
+        bad("millilitres are not megalitres", "volume: 2466.96367509504 m3", "volume: 9 ml",
+            "volume: 9 ml", "water_sources[pond].volume", "unit 'ml'", "9 ML"),
+        bad("decimal comma in a quantity", "cold_air_offset: -0.5C", "cold_air_offset: -2,5C",
+            "cold_air_offset: -2,5C", "blocks[north-gala].cold_air_offset", "use a decimal point"),
+        bad("Kelvin below absolute zero", "water_temp: 8C", "water_temp: -5K", "water_temp: -5K",
+            "blocks[north-gala].sprinklers.water_temp", "below absolute zero"),
+        bad("tab indentation", "  latitude: 46.21", "\tlatitude: 46.21", "latitude: 46.21",
+            "indented with a tab", "spaces"),
+        bad("escape character in the farm name", "name: Hillside Orchard", "name: \"Hill\\e[31mside\"",
+            "name: \"Hill", "farm.name", "control character U+001B"));
   }
 
   private static Arguments bad(String label, String find, String replace, String lineFragment, String... words) {
@@ -406,6 +427,75 @@ class FarmLoaderTest {
             assertThat(e.getMessage()).contains(w);
           }
         });
+  }
+
+  @Test
+  void everyProblemInTheFileIsReportedAtOnce() throws IOException {
+    String yaml = METRIC.replace("latitude: 46.21", "latitude: 96.21")
+        .replace("area: 4.0468564224 ha", "area: 0 ha")
+        .replace("deploy_hours: 2", "deploy_hours: two");
+    Path folder = write("many", yaml);
+    assertThatThrownBy(() -> FarmLoader.load(folder))
+        .isInstanceOf(BadInputException.class)
+        .satisfies(e -> assertThat(e.getMessage().lines().toList()).hasSize(3)
+            .anySatisfy(l -> assertThat(l).contains(":" + lineOf(yaml, "latitude: 96.21") + ": farm.latitude"))
+            .anySatisfy(l -> assertThat(l).contains(":" + lineOf(yaml, "area: 0 ha") + ": blocks[north-gala].area"))
+            .anySatisfy(l -> assertThat(l).contains(":" + lineOf(yaml, "deploy_hours: two") + ": blocks[east-berries]")));
+  }
+
+  @Test
+  void typographicMinusFromAWordProcessorIsAMinus() throws IOException {
+    Farm f = FarmLoader.load(write("minus", METRIC.replace("cold_air_offset: -0.5C", "cold_air_offset: \u22120.5C")
+        .replace("longitude: -119.76", "longitude: \u2212119.76")));
+    assertThat(f.block("north-gala").orElseThrow().coldAirOffsetC()).isEqualTo(-0.5);
+    assertThat(f.longitude()).isEqualTo(-119.76);
+  }
+
+  @Test
+  void yamlMergeKeysShareSettingsBetweenBlocks() throws IOException {
+    String yaml = METRIC.replace("""
+            sprinklers:
+              rate: 3.81 mm/h
+              source: pond
+              water_temp: 8C
+        """, """
+            sprinklers: &pond-set
+              rate: 3.81 mm/h
+              source: pond
+              water_temp: 8C
+        """).replace("""
+            sprinklers:
+              rate: 3.81 mm/h
+              source: well
+        """, """
+            sprinklers:
+              <<: *pond-set
+              source: well
+        """);
+    assertThat(yaml).contains("<<: *pond-set");
+    Farm f = FarmLoader.load(write("merge", yaml));
+    Sprinklers s = f.block("west-cherry").orElseThrow().sprinklers().orElseThrow();
+    assertThat(s.sourceId()).as("a key beside the merge wins").isEqualTo("well");
+    assertThat(s.rateMmH()).isEqualTo(3.81);
+    assertThat(s.waterTempC()).as("merged from the anchor").isEqualTo(8.0);
+  }
+
+  @Test
+  void farmFileThatIsNotUtf8SaysSoWithItsLine() throws IOException {
+    Path folder = dir.resolve("latin1");
+    Files.createDirectories(folder);
+    Files.write(folder.resolve("farm.yaml"), METRIC.replace("Hillside Orchard", "Verger du Coteau \u00e9t\u00e9")
+        .getBytes(StandardCharsets.ISO_8859_1));
+    assertThatThrownBy(() -> FarmLoader.load(folder))
+        .isInstanceOf(BadInputException.class)
+        .hasMessageStartingWith(folder.resolve("farm.yaml") + ":" + lineOf(METRIC, "name: Hillside") + ": not UTF-8")
+        .hasMessageContaining("save the file as UTF-8");
+  }
+
+  @Test
+  void byteOrderMarkIsDropped() throws IOException {
+    Farm f = FarmLoader.load(write("bom", "\uFEFF" + METRIC));
+    assertThat(f.name()).isEqualTo("Hillside Orchard");
   }
 
   @Test
@@ -446,7 +536,7 @@ class FarmLoaderTest {
         .hasMessageContaining("has no farm.yaml");
     assertThatThrownBy(() -> FarmLoader.load(dir.resolve("nowhere.yaml")))
         .isInstanceOf(BadInputException.class)
-        .hasMessageContaining("no such file");
+        .hasMessageContaining("no such farm file");
   }
 
   @Test

@@ -1,0 +1,77 @@
+package org.rimeward.farm;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.Set;
+import org.rimeward.io.Fields;
+import org.rimeward.io.Yaml.SeqNode;
+import org.rimeward.units.Dimension;
+
+/** Reads farm.yaml's {@code water_sources}: each source's id, most flow and usable volume. */
+final class WaterSourceReader {
+  private WaterSourceReader() {}
+
+  /**
+   * The sources read without problems; the others' problems go to the file's problems. Every id
+   * written, usable or not, is added to {@code declared}.
+   */
+  static List<WaterSource> read(Fields top, Set<String> declared) {
+    List<WaterSource> out = new ArrayList<>();
+    SeqNode list = top.list("water_sources");
+    if (list == null) {
+      return out;
+    }
+    Map<String, Integer> lines = new HashMap<>();
+    for (int i = 0; i < list.items().size(); i++) {
+      Fields s = Fields.of(list.items().get(i), "water_sources item " + (i + 1),
+          "id, max_flow and volume", top.problems());
+      if (s == null) {
+        continue;
+      }
+      int before = s.problems().size();
+      String id = FarmLoader.id(s, "a short name blocks refer to, e.g. id: pond");
+      if (id != null) {
+        declared.add(id);
+        s = s.renamed("water_sources[" + id + "]");
+        Integer previous = lines.putIfAbsent(id, s.lineOf("id"));
+        if (previous != null) {
+          s.problem("id", "'" + id + "' is already the id of the water source on line " + previous
+              + "; give each source its own id");
+        }
+      }
+      s.allow("id", "max_flow", "volume");
+      Double flow = s.value("max_flow", FarmLoader.quantity(s, "max_flow", Dimension.FLOW),
+          "the most the source delivers, e.g. max_flow: 450 m3/h or 2000 gpm");
+      if (flow != null && !(flow > 0)) {
+        s.problem("max_flow", s.quoted("max_flow") + " must be above 0; give the most the source"
+            + " can deliver, e.g. 450 m3/h or 2000 gpm");
+      } else if (flow != null && flow > WaterSource.MAX_FLOW_M3_H) {
+        s.problem("max_flow", String.format(Locale.ROOT, "%s (%.0f m3/h) is more than %.0f m3/h,"
+            + " more than a large river pumping station delivers; check the number and its unit"
+            + " (gpm, L/s or m3/h)", s.quoted("max_flow"), flow, WaterSource.MAX_FLOW_M3_H));
+      }
+      OptionalDouble volume = OptionalDouble.empty();
+      if (s.has("volume")) {
+        Double m3 = s.optionalValue("volume", FarmLoader.quantity(s, "volume", Dimension.VOLUME));
+        if (m3 != null && !(m3 > 0)) {
+          s.problem("volume", s.quoted("volume") + " must be above 0; give the usable volume, e.g."
+              + " 9000 m3 or 7.3 acre-ft, or leave volume out for a well with no volume limit");
+        } else if (m3 != null && m3 > WaterSource.MAX_VOLUME_M3) {
+          s.problem("volume", String.format(Locale.ROOT, "%s (%.0f m3) is more than %.0f m3, the"
+              + " size of a large irrigation reservoir; check the number and its unit (m3, ML,"
+              + " acre-ft or gal)", s.quoted("volume"), m3, WaterSource.MAX_VOLUME_M3));
+        } else if (m3 != null) {
+          volume = OptionalDouble.of(m3);
+        }
+      }
+      if (s.problems().size() == before) {
+        out.add(new WaterSource(id, flow, volume));
+      }
+    }
+    return out;
+  }
+}
