@@ -218,7 +218,7 @@ class ForecastReaderTest {
       unknown column      | time,air_temp_c,dew_point_c,wind_ms,cloud_pct,pressure\\n2024-04-12T22:00Z,1,0,1,0,101 | 1 | column 6 'pressure' is not a forecast column; allowed columns: time, air_temp_c, air_temp_f, dew_point_c
       repeated column     | time,air_temp_c,dew_point_c,wind_ms,cloud_pct,cloud_pct\\n2024-04-12T22:00Z,1,0,1,0,0 | 1 | column 'cloud_pct' appears twice (columns 5 and 6)
       malformed number    | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,1.2.3,0,1,0 | 2 | column air_temp_c, value '1.2.3': is not a number
-      decimal comma       | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,"2,5",0,1,0 | 2 | value '2,5': is not a number; use a point as the decimal separator
+      decimal comma       | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,"2,5",0,1,0 | 2 | value '2,5': is not a number; use a decimal point
       number with unit    | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,2C,0,1,0 | 2 | without its unit
       empty cell          | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,,0,1,0 | 2 | column air_temp_c, value '': a value is required
       short row           | time,air_temp_c,dew_point_c,wind_ms,cloud_pct\\n2024-04-12T22:00Z,1,0,1 | 2 | has 4 values but the header names 5 columns
@@ -270,5 +270,43 @@ class ForecastReaderTest {
         .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("dew point");
     assertThatThrownBy(() -> new Forecast(Path.of("f.csv"), List.of()))
         .isInstanceOf(IllegalArgumentException.class);
+  }
+
+  // Issue 14: exports people make with ordinary tools read as they expect.
+  @Test
+  void europeanSemicolonExportWithDecimalCommasAndTypographicMinusIsRead() throws IOException {
+    Path p = csv("""
+        # exported from a spreadsheet
+        time;air_temp_c;dew_point_c;wind_ms;cloud_pct
+        2024-04-12T22:00-07:00;2,5;−1,5;1,2;0
+        """);
+    ForecastStep s = ForecastReader.read(p, LA).steps().get(0);
+    assertThat(s.airTempC()).isEqualTo(2.5);
+    assertThat(s.dewPointC()).isEqualTo(-1.5);
+    assertThat(s.windMs()).isEqualTo(1.2);
+    assertThat(s.line()).isEqualTo(3);
+  }
+
+  @Test
+  void tabSeparatedExportIsRead() throws IOException {
+    Path p = csv("time\tair_temp_c\tdew_point_c\twind_ms\tcloud_pct\n"
+        + "2024-04-12T22:00-07:00\t2\t-1\t1\t0\n");
+    assertThat(ForecastReader.read(p, LA).steps().get(0).airTempC()).isEqualTo(2.0);
+  }
+
+  @Test
+  void relativeHumidityAsAFractionSaysPercent() throws IOException {
+    Path p = csv("time,air_temp_c,rh_pct,wind_ms,cloud_pct\n2024-04-12T22:00Z,1,0.7,1,0\n");
+    assertThatThrownBy(() -> ForecastReader.read(p, LA))
+        .isInstanceOf(BadInputException.class)
+        .hasMessage(p + ":2: column rh_pct, value '0.7': looks like a fraction; give relative"
+            + " humidity in percent, 0–100 (0.7 is 70)");
+  }
+
+  @Test
+  void forecastPathThatIsAFolderIsNamed() {
+    assertThatThrownBy(() -> ForecastReader.read(dir, LA))
+        .isInstanceOf(BadInputException.class)
+        .hasMessageStartingWith(dir + ": is a folder, not a forecast file;");
   }
 }
