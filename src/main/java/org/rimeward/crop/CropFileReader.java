@@ -8,11 +8,12 @@ import java.util.Locale;
 import java.util.Set;
 import java.util.TreeSet;
 import java.util.regex.Pattern;
-import org.rimeward.crop.YamlTree.Entry;
-import org.rimeward.crop.YamlTree.MapNode;
-import org.rimeward.crop.YamlTree.Node;
-import org.rimeward.crop.YamlTree.Scalar;
-import org.rimeward.crop.YamlTree.SeqNode;
+import org.rimeward.io.Yaml.Entry;
+import org.rimeward.io.Yaml.MapNode;
+import org.rimeward.io.Yaml.Node;
+import org.rimeward.io.Yaml.Scalar;
+import org.rimeward.io.Yaml.SeqNode;
+import org.rimeward.io.Yaml;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.QuantityException;
@@ -46,9 +47,15 @@ final class CropFileReader {
   /** Reads and checks one file; returns null when it has problems (added to {@code problems}). */
   static Crop read(String text, String file, String expectedId, List<String> problems) {
     int before = problems.size();
-    MapNode root = YamlTree.parse(text, file);
+    MapNode root = CropFileReader.parse(text, file);
     Crop crop = new CropFileReader(file, problems).crop(root, expectedId);
     return problems.size() == before ? crop : null;
+  }
+
+  /** The crop file's YAML; its top is a mapping of keys. */
+  static MapNode parse(String text, String file) {
+    return Yaml.parseMap(text, file, "a crop profile starts with 'crop: NAME'",
+        "a crop profile is a mapping of keys (crop:, name:, stages: ...)");
   }
 
   private static Set<String> keys(String... k) {

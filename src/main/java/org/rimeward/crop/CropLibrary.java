@@ -1,7 +1,6 @@
 package org.rimeward.crop;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -10,6 +9,7 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.TextFile;
 
 /**
  * All crop profiles of one folder: one {@code CROP.yaml} per crop, varieties inside it. Read with
@@ -72,14 +72,9 @@ public final class CropLibrary {
 
   static Crop readFile(Path f, List<String> problems) {
     String name = f.getFileName().toString();
-    String text;
     try {
-      text = Files.readString(f, StandardCharsets.UTF_8);
-    } catch (IOException e) {
-      problems.add(f + ": cannot be read: " + e.getMessage());
-      return null;
-    }
-    try {
+      String text = TextFile.read(f, TextFile.MAX_DOCUMENT_BYTES, "crop file",
+          "give the crop-profiles folder with --crop-profiles DIR").text();
       return CropFileReader.read(text, f.toString(),
           name.substring(0, name.length() - EXTENSION.length()), problems);
     } catch (BadInputException e) {

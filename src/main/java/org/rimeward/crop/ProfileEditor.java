@@ -13,11 +13,11 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.rimeward.crop.YamlTree.Entry;
-import org.rimeward.crop.YamlTree.MapNode;
-import org.rimeward.crop.YamlTree.Node;
-import org.rimeward.crop.YamlTree.Scalar;
-import org.rimeward.crop.YamlTree.SeqNode;
+import org.rimeward.io.Yaml.Entry;
+import org.rimeward.io.Yaml.MapNode;
+import org.rimeward.io.Yaml.Node;
+import org.rimeward.io.Yaml.Scalar;
+import org.rimeward.io.Yaml.SeqNode;
 import org.rimeward.io.AtomicFiles;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
@@ -252,7 +252,7 @@ public final class ProfileEditor {
           + " (rimeward profile check lists them):" + System.lineSeparator()
           + String.join(System.lineSeparator(), problems));
     }
-    return new Loaded(path, path.toString(), text, YamlTree.parse(text, path.toString()), c);
+    return new Loaded(path, path.toString(), text, CropFileReader.parse(text, path.toString()), c);
   }
 
   private String knownCrops() {

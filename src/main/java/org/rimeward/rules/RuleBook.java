@@ -27,6 +27,7 @@ import org.kie.api.runtime.KieSession;
 import org.drools.kiesession.rulebase.InternalKnowledgeBase;
 import org.drools.kiesession.rulebase.KnowledgeBaseFactory;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.TextFile;
 
 /**
  * A compiled set of rule files read from a folder ({@code rules/} by default). This is the only
@@ -164,7 +165,9 @@ public final class RuleBook {
       List<Path> paths = walk.filter(p -> p.toString().endsWith(".drl")).sorted().toList();
       List<RuleFile> out = new ArrayList<>();
       for (Path p : paths) {
-        String text = Files.readString(p, StandardCharsets.UTF_8);
+        String text = TextFile.read(p, TextFile.MAX_DOCUMENT_BYTES, "rule file",
+            "rename the folder (only rule files end in .drl) or move it out of the rules folder")
+            .text();
         String name = folder.relativize(p).toString().replace('\\', '/');
         out.add(new RuleFile(name, text, sha256(text)));
       }

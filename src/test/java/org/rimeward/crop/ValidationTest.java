@@ -150,7 +150,7 @@ class ValidationTest {
   @Test
   void duplicateKeyNamesBothLines() throws IOException {
     assertThat(problem(CROP.replace("name: Apple\n", "name: Apple\nname: Apple 2\n")))
-        .contains("apple.yaml:4: key 'name' appears twice in the same mapping (first on line 3)");
+        .contains("apple.yaml:4: 'name' is given twice in the same mapping (first on line 3)");
   }
 
   @Test
