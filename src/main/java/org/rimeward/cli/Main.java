@@ -7,6 +7,7 @@ import java.util.logging.LogManager;
 import java.util.logging.Logger;
 import org.rimeward.audit.AuditUnavailableException;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Text;
 import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.units.QuantityException;
 import picocli.CommandLine;
@@ -39,18 +40,23 @@ public final class Main {
     cmd.setOut(out);
     cmd.setErr(err);
     cmd.setCaseInsensitiveEnumValuesAllowed(true);
+    cmd.registerConverter(java.time.LocalDate.class, new DateConverter());
     cmd.setExecutionStrategy(Main::runQuietly);
     cmd.setParameterExceptionHandler((ex, argv) -> {
       CommandLine c = ex.getCommandLine();
-      c.getErr().println("rimeward: " + ex.getMessage());
+      c.getErr().println("rimeward: " + Text.escape(ex.getMessage()));
       c.getErr().println("Try '" + c.getCommandSpec().qualifiedName() + " --help'.");
       c.getErr().flush();
       return BAD_INPUT;
     });
     cmd.setExecutionExceptionHandler((ex, c, parseResult) -> {
+      if (rootCause(ex) instanceof OutOfMemoryError) {
+        return outOfMemory(c.getErr());
+      }
       Throwable t = rootInput(ex);
       if (t != null) {
-        c.getErr().println("rimeward: " + t.getMessage());
+        // Messages quote what people wrote; control characters in it never reach the terminal.
+        c.getErr().println("rimeward: " + Text.escape(t.getMessage()));
         c.getErr().flush();
         return BAD_INPUT;
       }
@@ -58,7 +64,7 @@ public final class Main {
       AuditUnavailableException audit = audit(ex);
       if (audit != null) {
         // The trail could not be opened or written: a condition of the machine, not a bug.
-        c.getErr().println("rimeward: " + audit.getMessage());
+        c.getErr().println("rimeward: " + Text.escape(audit.getMessage()));
         if (debug) {
           ex.printStackTrace(c.getErr());
         }
@@ -73,10 +79,29 @@ public final class Main {
       c.getErr().flush();
       return INTERNAL_ERROR;
     });
-    int code = cmd.execute(args);
+    int code;
+    try {
+      code = cmd.execute(args);
+    } catch (OutOfMemoryError e) {
+      code = outOfMemory(err);
+    }
     out.flush();
     err.flush();
     return code;
+  }
+
+  /**
+   * One line, and the heap to try: twice what this run had. The audit trail writes a run in one
+   * transaction, so a run that ran out of memory left nothing half-written there.
+   */
+  static int outOfMemory(PrintWriter err) {
+    long mb = Runtime.getRuntime().maxMemory() >> 20;
+    long next = Math.max(256, Integer.highestOneBit((int) Math.max(1, mb)) * 2L);
+    err.println("rimeward: out of memory with a " + mb + " MB Java heap; nothing was recorded."
+        + " Run again with more, e.g. java -Xmx" + next + "m -jar rimeward.jar ... (or"
+        + " JAVA_OPTS=-Xmx" + next + "m bin/rimeward ...)");
+    err.flush();
+    return INTERNAL_ERROR;
   }
 
   private static Throwable rootInput(Throwable ex) {
@@ -87,6 +112,14 @@ public final class Main {
       }
     }
     return null;
+  }
+
+  private static Throwable rootCause(Throwable ex) {
+    Throwable t = ex;
+    while (t.getCause() != null && t.getCause() != t) {
+      t = t.getCause();
+    }
+    return t;
   }
 
   private static AuditUnavailableException audit(Throwable ex) {
