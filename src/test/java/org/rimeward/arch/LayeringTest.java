@@ -32,7 +32,8 @@ class LayeringTest {
       new Layer("plan", "org.rimeward.plan.."),
       new Layer("rules", "org.rimeward.rules.."),
       new Layer("domain", "org.rimeward.weather..", "org.rimeward.physics..",
-          "org.rimeward.crop..", "org.rimeward.farm..", "org.rimeward.water.."),
+          "org.rimeward.crop..", "org.rimeward.farm..", "org.rimeward.water..",
+          "org.rimeward.minimum.."),
       new Layer("units", "org.rimeward.units.."),
       new Layer("io", "org.rimeward.io.."),
       // BuildInfo: the version, read by anything that prints or records it.
