@@ -3,11 +3,9 @@ package org.rimeward.audit;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.time.ZoneId;
-import java.time.format.DateTimeFormatter;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.Iterator;
@@ -16,8 +14,9 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import org.rimeward.io.BadInputException;
-import org.rimeward.units.Dimension;
-import org.rimeward.units.Quantities;
+import org.rimeward.io.Json;
+import org.rimeward.plan.PlanDocument;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 
 /**
@@ -27,10 +26,7 @@ import org.rimeward.units.UnitSystem;
  * profile value and its source, every input file's hash). Everything is read from the record.
  */
 public final class BlockWhy {
-  private static final ObjectMapper JSON = new ObjectMapper()
-      .enable(SerializationFeature.INDENT_OUTPUT);
-  private static final DateTimeFormatter STAMP =
-      DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm:ss", Locale.ROOT);
+  private static final ObjectMapper JSON = Json.mapper();
 
   /** One rule in the chain; {@code farmWide} for a rule that matched no block. */
   public record Step(int seq, String ruleId, String kind, String explanation, JsonNode values,
@@ -38,12 +34,12 @@ public final class BlockWhy {
 
   private final RunRecord run;
   private final RecordedBlock block;
-  private final JsonNode decision;
+  private final PlanDocument.Block decision;
   private final List<Step> steps;
   private final String waterSource;
   private final Map<Integer, String> forecastLines;
 
-  private BlockWhy(RunRecord run, RecordedBlock block, JsonNode decision, List<Step> steps,
+  private BlockWhy(RunRecord run, RecordedBlock block, PlanDocument.Block decision, List<Step> steps,
       String waterSource, Map<Integer, String> forecastLines) {
     this.run = run;
     this.block = block;
@@ -58,58 +54,36 @@ public final class BlockWhy {
     RecordedBlock block = run.block(blockId).orElseThrow(() -> new BadInputException("BLOCK: run "
         + run.runId() + " planned no block '" + blockId + "'; it planned "
         + String.join(", ", run.blocks().stream().map(RecordedBlock::blockId).toList())));
-    JsonNode decision = read(block.decisionJson(), run);
-    JsonNode plan = read(run.planJson(), run);
+    PlanDocument plan = RunReport.plan(run);
+    PlanDocument.Block decision = read(block.decisionJson(), run);
     Map<Integer, String> kinds = new TreeMap<>();
-    for (JsonNode r : decision.path("rules")) {
-      kinds.put(r.path("seq").asInt(), r.path("kind").asText(""));
+    for (PlanDocument.Rule r : decision.rules()) {
+      kinds.put(r.seq(), r.kind());
     }
     List<Step> steps = new ArrayList<>();
     for (RecordedRule r : block.rules()) {
       steps.add(new Step(r.seq(), r.ruleId(), kinds.getOrDefault(r.seq(), ""), r.explanation(),
-          read(r.factsJson(), run), false));
+          values(r.factsJson(), run), false));
     }
-    String source = null;
-    for (JsonNode a : decision.path("actions")) {
-      if (a.path("source").isTextual()) {
-        source = a.path("source").asText();
-      }
-    }
+    String source = decision.sprinkle().map(PlanDocument.Sprinkle::source).orElse(null);
     if (source != null) {
-      for (JsonNode r : plan.path("farm_rules")) {
-        if (concerns(r.path("values"), source)) {
-          steps.add(new Step(r.path("seq").asInt(), r.path("id").asText(),
-              r.path("kind").asText(""), r.path("explanation").asText(""), r.path("values"), true));
+      for (PlanDocument.Rule r : plan.farmRules()) {
+        if (r.sourceId().filter(source::equals).isPresent()) {
+          steps.add(new Step(r.seq(), r.id(), r.kind(), r.explanation(), r.values(), true));
         }
       }
     }
     steps.sort(Comparator.comparingInt(Step::seq));
     Map<Integer, String> lines = new TreeMap<>();
-    if (decision.path("coldest_forecast_line").canConvertToInt()) {
-      lines.put(decision.path("coldest_forecast_line").asInt(), null);
-    }
+    lines.put(decision.coldestForecastLine(), null);
     for (Step s : steps) {
       collectLines(s.values(), null, lines);
     }
-    if (!lines.isEmpty()) {
-      lines.put(1, null); // the header, naming the columns of the lines quoted
-    }
+    lines.put(1, null); // the header, naming the columns of the lines quoted
     String[] forecast = run.inputs().stream().filter(i -> i.kind() == InputKind.FORECAST)
         .findFirst().map(i -> i.text().split("\r?\n", -1)).orElse(new String[0]);
     lines.replaceAll((n, v) -> n >= 1 && n <= forecast.length ? forecast[n - 1] : null);
     return new BlockWhy(run, block, decision, List.copyOf(steps), source, lines);
-  }
-
-  /** A farm-wide rule is about the source when one of its {@code ...sourceId} values names it. */
-  private static boolean concerns(JsonNode values, String source) {
-    for (Iterator<Map.Entry<String, JsonNode>> it = values.fields(); it.hasNext();) {
-      Map.Entry<String, JsonNode> e = it.next();
-      String k = e.getKey();
-      if ((k.equals("sourceId") || k.endsWith(".sourceId")) && source.equals(e.getValue().asText())) {
-        return true;
-      }
-    }
-    return false;
   }
 
   /** Forecast lines a rule saw: in its moments ({@code forecast_line}) and its {@code ...Line} values. */
@@ -144,7 +118,7 @@ public final class BlockWhy {
 
   /** The recorded crop-profile file for the block's crop, if the run recorded one. */
   public java.util.Optional<RecordedInput> profileFile() {
-    String crop = decision.path("crop").asText("");
+    String crop = decision.crop();
     return run.inputs().stream().filter(i -> i.kind() == InputKind.CROP_PROFILE)
         .filter(i -> stem(i.name()).equals(crop)).findFirst();
   }
@@ -164,12 +138,15 @@ public final class BlockWhy {
     root.put("status", block.status());
     root.put("risk", block.risk());
     root.put("protection_needed", block.protectionNeeded());
-    root.set("actions", decision.path("actions").deepCopy());
+    root.set("actions", JSON.valueToTree(decision.actions()));
     ObjectNode profile = root.putObject("profile");
-    for (String k : List.of("crop", "variety", "stage", "t10_c", "t90_c", "threshold_source",
-        "target_c")) {
-      profile.set(k, decision.path(k).isMissingNode() ? JSON.nullNode() : decision.get(k));
-    }
+    profile.put("crop", decision.crop());
+    profile.put("variety", decision.variety());
+    profile.put("stage", decision.stage());
+    profile.put("t10_c", Json.round(decision.t10C(), 2));
+    profile.put("t90_c", Json.round(decision.t90C(), 2));
+    profile.put("threshold_source", decision.thresholdSource());
+    profile.put("target_c", Json.round(decision.targetC(), 2));
     profileFile().ifPresentOrElse(f -> profile.put("file", f.name()), () -> profile.putNull("file"));
     ArrayNode rules = root.putArray("rules");
     for (Step s : steps) {
@@ -196,36 +173,33 @@ public final class BlockWhy {
       f.put("sha256", in.sha256());
       f.put("bytes", in.sizeBytes());
     }
-    try {
-      return JSON.writeValueAsString(root) + "\n";
-    } catch (JsonProcessingException e) {
-      throw new IllegalStateException(e);
-    }
+    return Json.pretty(root);
   }
 
   public String text(UnitSystem units) {
+    UnitFormat fmt = UnitFormat.of(units);
     ZoneId zone = ZoneId.of(run.zoneId());
     StringBuilder s = new StringBuilder();
     s.append("Why ").append(block.blockId()).append(" is ").append(block.status())
         .append(" (risk ").append(block.risk()).append(") on the night of ").append(run.night())
         .append('\n');
     s.append("Run ").append(run.runId()).append(", recorded ")
-        .append(STAMP.format(run.ranAt().atZone(zone))).append(' ').append(run.zoneId())
+        .append(fmt.stamp(run.ranAt().atZone(zone).toOffsetDateTime())).append(' ').append(run.zoneId())
         .append(", farm ").append(run.farmName()).append('\n');
     s.append(block.protectionNeeded() ? "Protection planned:" : "No protection was planned.")
         .append('\n');
-    for (JsonNode a : decision.path("actions")) {
+    for (PlanDocument.Action a : decision.actions()) {
       s.append("  ").append(action(a)).append('\n');
     }
-    s.append("\nProfile: ").append(decision.path("crop").asText("?"));
-    if (decision.path("variety").isTextual()) {
-      s.append('/').append(decision.path("variety").asText());
+    s.append("\nProfile: ").append(decision.crop());
+    if (decision.variety() != null) {
+      s.append('/').append(decision.variety());
     }
-    s.append(" at ").append(decision.path("stage").asText("?")).append(": T10 ")
-        .append(temp(decision.path("t10_c"), units)).append(", T90 ")
-        .append(temp(decision.path("t90_c"), units)).append(", target ")
-        .append(temp(decision.path("target_c"), units)).append('\n');
-    s.append("  source: ").append(decision.path("threshold_source").asText("?")).append('\n');
+    s.append(" at ").append(decision.stage()).append(": T10 ")
+        .append(fmt.temp(decision.t10C())).append(", T90 ")
+        .append(fmt.temp(decision.t90C())).append(", target ")
+        .append(fmt.temp(decision.targetC())).append('\n');
+    s.append("  source: ").append(decision.thresholdSource()).append('\n');
     profileFile().ifPresent(f -> s.append("  from ").append(f.name()).append(" (sha256 ")
         .append(f.sha256()).append(")\n"));
 
@@ -272,24 +246,28 @@ public final class BlockWhy {
     return String.join("; ", parts);
   }
 
-  private static String action(JsonNode a) {
-    if ("sprinkle".equals(a.path("method").asText())) {
-      return "sprinkle from " + a.path("start").asText("?") + " to " + a.path("stop").asText("?")
-          + " from " + a.path("source").asText("?")
-          + (a.path("water_granted").asBoolean(true) ? "" : " (no water left for it)");
+  private static String action(PlanDocument.Action a) {
+    if (a instanceof PlanDocument.Sprinkle sp && !sp.waterGranted()) {
+      return "sprinklers off: no water from " + sp.source();
     }
-    if ("cover".equals(a.path("method").asText())) {
-      return "covers on from " + a.path("deploy_start").asText("?") + ", off at "
-          + a.path("remove").asText("?");
+    if (a instanceof PlanDocument.Sprinkle sp) {
+      return "sprinkle from " + Json.time(sp.start()) + " to " + Json.time(sp.stop()) + " from "
+          + sp.source();
     }
-    return a.toString();
+    PlanDocument.Cover c = (PlanDocument.Cover) a;
+    return "covers on from " + Json.time(c.deployStart()) + ", off at " + Json.time(c.remove());
   }
 
-  private static String temp(JsonNode n, UnitSystem units) {
-    return n.isNumber() ? Quantities.format(n.asDouble(), Dimension.TEMPERATURE, units, 1) : "?";
+  private static PlanDocument.Block read(String json, RunRecord run) {
+    try {
+      return JSON.readValue(json, PlanDocument.Block.class);
+    } catch (JsonProcessingException e) {
+      throw new AuditIntegrityException("run " + run.runId() + ": a recorded block decision cannot"
+          + " be read back; run 'rimeward audit verify'");
+    }
   }
 
-  private static JsonNode read(String json, RunRecord run) {
+  private static JsonNode values(String json, RunRecord run) {
     try {
       return JSON.readTree(json);
     } catch (JsonProcessingException e) {

@@ -1,6 +1,5 @@
 package org.rimeward.audit;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -18,6 +17,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
 import java.util.stream.Stream;
+import org.rimeward.io.Json;
 import org.rimeward.plan.NightPlanner;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanInputs;
@@ -32,7 +32,13 @@ public final class Replay {
   /** Keys of the plan document that say nothing about the decision. */
   static final Set<String> IGNORED = Set.of("tool_version");
 
-  private static final ObjectMapper JSON = new ObjectMapper();
+  /**
+   * Keys at any depth left out of the comparison: a block's night series is the physics behind
+   * its decision, step by step, and would bury the decision's own differences.
+   */
+  static final Set<String> IGNORED_ANYWHERE = Set.of("series");
+
+  private static final ObjectMapper JSON = Json.mapper();
 
   private final NightPlanner planner;
 
@@ -166,7 +172,10 @@ public final class Replay {
       Plan plan = planner.plan(new PlanRequest(farmFile, forecast,
           cropProfilesDir != null ? cropProfilesDir : profiles,
           rulesDir != null ? rulesDir : rules, run.night()));
-      JsonNode recorded = parse(run);
+      // The recorded text must read as a plan document; it is compared key for key as written,
+      // and keys a run recorded by an older version did not write are not differences.
+      RunReport.plan(run);
+      JsonNode recorded = JSON.readTree(run.planJson());
       ObjectNode now = PlanJson.toTree(plan);
       List<Difference> diffs = new ArrayList<>();
       diff("", recorded, now, diffs);
@@ -228,7 +237,10 @@ public final class Replay {
       a.fieldNames().forEachRemaining(keys::add);
       b.fieldNames().forEachRemaining(keys::add);
       for (String k : keys) {
-        if (path.isEmpty() && IGNORED.contains(k)) {
+        if (path.isEmpty() && IGNORED.contains(k) || IGNORED_ANYWHERE.contains(k)) {
+          continue;
+        }
+        if (!a.has(k)) {
           continue;
         }
         // A rule's place in the firing order moves whenever any rule before it changes.
@@ -344,15 +356,6 @@ public final class Replay {
 
   private static String escape(String k) {
     return k.replace("~", "~0").replace("/", "~1");
-  }
-
-  private static JsonNode parse(RunRecord run) {
-    try {
-      return JSON.readTree(run.planJson());
-    } catch (JsonProcessingException e) {
-      throw new AuditIntegrityException("run " + run.runId() + ": its recorded plan is not JSON,"
-          + " so it cannot be compared");
-    }
   }
 
   private static void deleteQuietly(Path dir) {

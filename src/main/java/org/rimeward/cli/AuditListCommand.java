@@ -1,7 +1,6 @@
 package org.rimeward.cli;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
@@ -50,7 +49,7 @@ final class AuditListCommand implements Callable<Integer> {
       }
       PrintWriter out = spec.commandLine().getOut();
       if (json) {
-        ObjectMapper m = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+        ObjectMapper m = org.rimeward.io.Json.mapper();
         ArrayNode arr = m.createArrayNode();
         for (RunSummary r : runs) {
           ObjectNode n = arr.addObject();
@@ -61,7 +60,7 @@ final class AuditListCommand implements Callable<Integer> {
           n.put("blocks", r.blockCount());
           n.put("blocks_needing_protection", r.protectionNeededCount());
         }
-        out.println(m.writeValueAsString(arr));
+        out.print(org.rimeward.io.Json.pretty(arr));
         return Main.OK;
       }
       if (runs.isEmpty()) {

@@ -12,7 +12,7 @@ import picocli.CommandLine.Model.CommandSpec;
 final class CalcOutput {
   static final String TEMP_UNITS = "a temperature such as -2.2C or 28F; a bare number is °C,"
       + " or °F with --units us";
-  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final ObjectMapper JSON = org.rimeward.io.Json.mapper();
 
   private CalcOutput() {}
 

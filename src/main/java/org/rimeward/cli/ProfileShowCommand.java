@@ -1,8 +1,6 @@
 package org.rimeward.cli;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
@@ -47,7 +45,7 @@ final class ProfileShowCommand implements Runnable {
   }
 
   private static String json(EffectiveProfile p, Crop crop) {
-    ObjectMapper m = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+    ObjectMapper m = org.rimeward.io.Json.mapper();
     ObjectNode root = m.createObjectNode();
     root.put("crop", p.crop());
     root.put("variety", p.variety());
@@ -63,11 +61,7 @@ final class ProfileShowCommand implements Runnable {
       n.put("provenance", s.provenance().name().toLowerCase(java.util.Locale.ROOT));
       n.put("source", s.source());
     }
-    try {
-      return m.writeValueAsString(root);
-    } catch (JsonProcessingException e) {
-      throw new IllegalStateException(e);
-    }
+    return org.rimeward.io.Json.pretty(root).stripTrailing();
   }
 
   private static void text(EffectiveProfile p, Crop crop, UnitSystem units, PrintWriter out) {

@@ -5,6 +5,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import org.rimeward.rules.FiredRule;
+import org.rimeward.rules.facts.NightSeries;
 import org.rimeward.rules.facts.RiskLevel;
 import org.rimeward.rules.facts.Status;
 
@@ -13,12 +14,13 @@ import org.rimeward.rules.facts.Status;
  *
  * @param variety null when the block names none (the crop's reference table applies)
  * @param thresholdSource where T10 and T90 came from
+ * @param series the block's night step by step, as the physics computed it
  */
 public record BlockPlan(String blockId, String crop, String variety, String stage,
     String stageName, double t10C, double t90C, String thresholdSource, double targetC,
     double minAirC, double minBudC, double minWetBulbC, Instant coldestAt, int coldestLine,
     RiskLevel risk, double killPctUnprotected, Status status, List<Action> actions,
-    List<FiredRule> cautions, List<FiredRule> rules) {
+    List<FiredRule> cautions, List<FiredRule> rules, NightSeries series) {
   public BlockPlan {
     actions = List.copyOf(actions);
     cautions = List.copyOf(cautions);
@@ -28,6 +30,11 @@ public record BlockPlan(String blockId, String crop, String variety, String stag
   /** When the first action begins; empty when there is nothing to do. */
   public Optional<Instant> firstAction() {
     return actions.stream().map(Action::begins).min(Comparator.naturalOrder());
+  }
+
+  /** Whether tonight threatens the block at all: any risk but none. */
+  public boolean atRisk() {
+    return risk != RiskLevel.NONE;
   }
 
   public boolean needsAction() {

@@ -80,7 +80,7 @@ final class PlanAssembly {
           first(statuses, id).map(BlockStatus::status).orElseThrow(
               () -> new IllegalStateException("no status rule fired for block " + id
                   + "; every block needs one STATUS rule")),
-          actions, rules.stream().filter(FiredRule::isCaution).toList(), rules));
+          actions, rules.stream().filter(FiredRule::isCaution).toList(), rules, bn.series()));
     }
     blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
         .thenComparing(BlockPlan::blockId));

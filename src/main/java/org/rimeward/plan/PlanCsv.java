@@ -3,42 +3,86 @@ package org.rimeward.plan;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
-import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.Collectors;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
+import org.rimeward.io.Json;
 
-/** The plan as CSV: one row per block action (a block with nothing to do has one row), metric. */
+/**
+ * The plan as CSV, the one schema of {@code plan --format csv} and {@code audit export --format
+ * csv}: one row per block action (a block with nothing to do has one row, method {@code none}),
+ * metric, times local with their offset, LF line endings. An export puts the run id first.
+ */
 public final class PlanCsv {
-  static final String[] HEADER = {"night", "block", "crop", "variety", "stage", "risk",
-      "kill_pct_unprotected", "status", "method", "start", "stop", "required_rate_mm_h",
-      "installed_rate_mm_h", "water_m3", "source", "water_granted", "area_ha", "flow_m3_h", "grant"};
+  /** The columns, without the export's leading {@code run_id}. */
+  public static final List<String> COLUMNS = List.of("night", "block", "crop", "variety", "stage",
+      "risk", "kill_pct_unprotected", "status", "method", "start", "stop", "required_rate_mm_h",
+      "installed_rate_mm_h", "water_m3", "source", "water_granted", "area_ha", "flow_m3_h", "grant",
+      "decision_rules", "done_start", "done_stop");
+
+  /** What the crew recorded for a block's action: its first start and last stop, or empty. */
+  @FunctionalInterface
+  public interface Done {
+    /** {@code [done_start, done_stop]} for the block and the action's method. */
+    String[] times(String block, String method);
+
+    /** Nothing recorded: tonight's plan, before anyone acted on it. */
+    Done NOTHING = (block, method) -> new String[] {"", ""};
+  }
 
   private PlanCsv() {}
 
   public static String render(Plan plan) {
-    ZoneId zone = plan.night().zone();
+    return render(PlanDocuments.of(plan), null, Done.NOTHING);
+  }
+
+  /**
+   * The document as CSV.
+   *
+   * @param runId the recorded run's id for a leading {@code run_id} column; null for none
+   * @param done what the crew recorded for each action
+   */
+  public static String render(PlanDocument plan, String runId, Done done) {
+    List<String> header = new ArrayList<>();
+    if (runId != null) {
+      header.add("run_id");
+    }
+    header.addAll(COLUMNS);
     StringWriter out = new StringWriter();
-    try (CSVPrinter p = new CSVPrinter(out, CSVFormat.DEFAULT.builder().setHeader(HEADER)
-        .setRecordSeparator("\n").get())) {
-      for (BlockPlan b : plan.blocks()) {
-        Object[] head = {plan.night().date(), b.blockId(), b.crop(), b.variety(), b.stage(),
-            PlanJson.word(b.risk()), PlanJson.round(b.killPctUnprotected(), 1), PlanJson.word(b.status())};
-        if (b.actions().isEmpty()) {
-          p.printRecord(concat(head, "none", "", "", "", "", "", "", "", "", "", ""));
+    try (CSVPrinter p = new CSVPrinter(out, CSVFormat.DEFAULT.builder()
+        .setHeader(header.toArray(String[]::new)).setRecordSeparator("\n").get())) {
+      for (PlanDocument.Block b : plan.blocks()) {
+        // The decisions that made the row, so a spreadsheet reader can find the reason in the
+        // trail: every decision rule that fired for the block, in firing order.
+        String decided = b.rules().stream().filter(r -> "decision".equals(r.kind()))
+            .map(PlanDocument.Rule::id).collect(Collectors.joining(" "));
+        List<Object> head = new ArrayList<>();
+        if (runId != null) {
+          head.add(runId);
         }
-        for (Action a : b.actions()) {
-          if (a instanceof Action.Sprinkle s && !s.withWater()) {
+        head.addAll(java.util.Arrays.asList(plan.night().date(), b.block(), b.crop(), b.variety(),
+            b.stage(), b.risk(), Json.round(b.killPctUnprotected(), 1), b.status()));
+        if (b.actions().isEmpty()) {
+          p.printRecord(concat(head, "none", "", "", "", "", "", "", "", "", "", "", decided, "", ""));
+        }
+        for (PlanDocument.Action a : b.actions()) {
+          if (a instanceof PlanDocument.Sprinkle s && !s.waterGranted()) {
             // Not "sprinkle" with times: a block granted no water keeps its sprinklers off.
-            p.printRecord(concat(head, "sprinklers-off", "", "", PlanJson.round(s.requiredRateMmH(), 2),
-                "", "", s.source(), false, PlanJson.round(0, 2), "", PlanJson.word(s.grant())));
-          } else if (a instanceof Action.Sprinkle s) {
-            p.printRecord(concat(head, "sprinkle", PlanJson.time(s.start(), zone),
-                PlanJson.time(s.stop(), zone), PlanJson.round(s.requiredRateMmH(), 2),
-                PlanJson.round(s.runRateMmH(), 2), PlanJson.round(s.waterM3(), 1), s.source(), true,
-                PlanJson.round(s.areaHa(), 2), PlanJson.round(s.flowM3H(), 1), PlanJson.word(s.grant())));
-          } else if (a instanceof Action.Cover c) {
-            p.printRecord(concat(head, "cover", PlanJson.time(c.deployStart(), zone),
-                PlanJson.time(c.remove(), zone), "", "", "", "", "", "", "", ""));
+            p.printRecord(concat(head, "sprinklers-off", "", "", Json.round(s.requiredRateMmH(), 2),
+                "", "", s.source(), false, Json.round(0, 2), "", s.grant(), decided,
+                done.times(b.block(), "sprinkle")[0], done.times(b.block(), "sprinkle")[1]));
+          } else if (a instanceof PlanDocument.Sprinkle s) {
+            p.printRecord(concat(head, "sprinkle", Json.time(s.start()), Json.time(s.stop()),
+                Json.round(s.requiredRateMmH(), 2), Json.round(s.installedRateMmH(), 2),
+                Json.round(s.waterM3(), 1), s.source(), true, Json.round(s.areaHa(), 2),
+                Json.round(s.flowM3H(), 1), s.grant(), decided, done.times(b.block(), "sprinkle")[0],
+                done.times(b.block(), "sprinkle")[1]));
+          } else if (a instanceof PlanDocument.Cover c) {
+            p.printRecord(concat(head, "cover", Json.time(c.deployStart()), Json.time(c.remove()),
+                "", "", "", "", "", "", "", "", decided, done.times(b.block(), "cover")[0],
+                done.times(b.block(), "cover")[1]));
           }
         }
       }
@@ -48,10 +92,9 @@ public final class PlanCsv {
     return out.toString();
   }
 
-  private static Object[] concat(Object[] head, Object... tail) {
-    Object[] all = new Object[head.length + tail.length];
-    System.arraycopy(head, 0, all, 0, head.length);
-    System.arraycopy(tail, 0, all, head.length, tail.length);
+  private static List<Object> concat(List<Object> head, Object... tail) {
+    List<Object> all = new ArrayList<>(head);
+    all.addAll(java.util.Arrays.asList(tail));
     return all;
   }
 }

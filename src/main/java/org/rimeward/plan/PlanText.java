@@ -1,95 +1,110 @@
 package org.rimeward.plan;
 
-import java.time.Instant;
-import java.time.ZoneId;
-import java.time.format.DateTimeFormatter;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.function.Function;
 import org.rimeward.rules.Explanations;
 import org.rimeward.rules.FiredRule;
-import org.rimeward.units.Dimension;
-import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 
 /** The plan as one screen a manager reads at dusk, in the chosen units. */
 public final class PlanText {
-  private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
-  private static final DateTimeFormatter DAY_CLOCK = DateTimeFormatter.ofPattern("EEE HH:mm", Locale.ENGLISH);
-
   private PlanText() {}
 
   public static String render(Plan plan, UnitSystem units, boolean explain) {
-    ZoneId zone = plan.night().zone();
+    return render(PlanDocuments.of(plan), UnitFormat.of(units), explain, explainer(plan, units));
+  }
+
+  /**
+   * The explanations of a plan's rules in {@code units}, by firing order: the recorded text is
+   * metric, so other units are rendered again from each rule's template and values.
+   */
+  public static Function<PlanDocument.Rule, String> explainer(Plan plan, UnitSystem units) {
+    if (units == UnitSystem.METRIC) {
+      return PlanDocument.Rule::explanation;
+    }
+    Map<Integer, FiredRule> bySeq = new HashMap<>();
+    plan.trail().forEach(r -> bySeq.put(r.seq(), r));
+    return r -> {
+      FiredRule f = bySeq.get(r.seq());
+      return f == null ? r.explanation()
+          : Explanations.render(f.template(), f.values(), units, plan.night().zone());
+    };
+  }
+
+  /** The plan document as text; {@code explain} gives each rule's words in the display units. */
+  public static String render(PlanDocument plan, UnitFormat fmt, boolean explain,
+      Function<PlanDocument.Rule, String> words) {
     StringBuilder sb = new StringBuilder();
-    NightSummary n = plan.night();
-    sb.append("Frost plan for ").append(plan.farmName()).append(", night of ").append(n.date())
-        .append(" (").append(zone.getId()).append(")\n");
-    sb.append("  sunset ").append(day(n.sunset(), zone)).append(", sunrise ").append(day(n.sunrise(), zone))
-        .append(", coldest ").append(temp(n.minAirC(), units)).append(" at ").append(day(n.coldestAt(), zone))
-        .append(" (forecast air)\n");
+    PlanDocument.Night n = plan.night();
+    sb.append("Frost plan for ").append(plan.farm()).append(", night of ").append(n.date())
+        .append(" (").append(n.zone()).append(")\n");
+    sb.append("  sunset ").append(fmt.dayClock(n.sunset())).append(", sunrise ")
+        .append(fmt.dayClock(n.sunrise())).append(", coldest ").append(fmt.temp(n.minAirC()))
+        .append(" at ").append(fmt.dayClock(n.coldestAt())).append(" (forecast air)\n");
     sb.append("  Decision support only: check thermometers at bud height in each block, and follow"
         + " local codes, water rights and licensed practice.\n\n");
 
     List<String[]> rows = new ArrayList<>();
     rows.add(new String[] {"block", "crop / stage", "risk", "coldest bud", "plan", "start", "stop", "water"});
-    for (BlockPlan b : plan.blocks()) {
+    for (PlanDocument.Block b : plan.blocks()) {
       String crop = b.crop() + (b.variety() != null ? " " + b.variety() : "") + " / " + b.stageName();
-      String risk = word(b.risk()) + (b.killPctUnprotected() >= 1
+      String risk = b.risk() + (b.killPctUnprotected() >= 1
           ? String.format(Locale.ROOT, " (%.0f%% kill)", b.killPctUnprotected()) : "");
-      String bud = temp(b.minBudC(), units);
+      String bud = fmt.temp(b.minBudC());
       if (b.actions().isEmpty()) {
-        rows.add(new String[] {b.blockId(), crop, risk, bud, statusWord(b), "", "", ""});
+        rows.add(new String[] {b.block(), crop, risk, bud, statusWord(b), "", "", ""});
       }
       boolean first = true;
-      for (Action a : b.actions()) {
-        String[] row = first ? new String[] {b.blockId(), crop, risk, bud, "", "", "", ""}
+      for (PlanDocument.Action a : b.actions()) {
+        String[] row = first ? new String[] {b.block(), crop, risk, bud, "", "", "", ""}
             : new String[] {"", "", "", "", "", "", "", ""};
         first = false;
-        if (a instanceof Action.Cover c) {
+        if (a instanceof PlanDocument.Cover c) {
           row[4] = c.sufficient() ? "covers on" : "covers on (not enough alone)";
-          row[5] = clock(c.deployStart(), zone);
-          row[6] = clock(c.remove(), zone);
-        } else if (a instanceof Action.Sprinkle s) {
-          sprinkleRow(row, s, units, zone);
+          row[5] = fmt.clock(c.deployStart());
+          row[6] = fmt.clock(c.remove());
+        } else if (a instanceof PlanDocument.Sprinkle s) {
+          sprinkleRow(row, s, fmt);
         }
         rows.add(row);
       }
-      if (b.status() == org.rimeward.rules.facts.Status.SHORT_OF_WATER
-          || b.status() == org.rimeward.rules.facts.Status.PARTLY_PROTECTED
-          || b.status() == org.rimeward.rules.facts.Status.UNPROTECTED && !b.actions().isEmpty()) {
+      if (b.status().equals("short-of-water") || b.status().equals("partly-protected")
+          || b.status().equals("unprotected") && !b.actions().isEmpty()) {
         rows.add(new String[] {"", "", "", "", "-> " + statusWord(b)
-            + (b.sprinkle().filter(s -> !s.withWater()).isPresent()
-                ? String.format(Locale.ROOT, ": sprinklers off, expect %.0f%% kill", b.killPctUnprotected()) : ""),
+            + (b.sprinkle().filter(s -> !s.waterGranted()).isPresent()
+                ? String.format(Locale.ROOT, ": sprinklers off, expect %.0f%% kill",
+                    b.killPctUnprotected()) : ""),
             "", "", ""});
       }
     }
     table(sb, rows);
 
     sb.append("\nWater\n");
-    for (WaterEntry w : plan.water()) {
-      sb.append("  ").append(w.source()).append(": peak ")
-          .append(Quantities.format(w.peakFlowM3H(), Dimension.FLOW, units, 0))
-          .append(w.isShortOfWater() ? " (full protection wants "
-              + Quantities.format(w.wantedPeakFlowM3H(), Dimension.FLOW, units, 0) + ")" : "")
-          .append(" of ")
-          .append(Quantities.format(w.maxFlowM3H(), Dimension.FLOW, units, 0)).append(", ")
-          .append(Quantities.format(w.volumeM3(), Dimension.VOLUME, units, 0)).append(" of ")
-          .append(Double.isNaN(w.availableM3()) ? "no volume limit"
-              : Quantities.format(w.availableM3(), Dimension.VOLUME, units, 0))
-          .append(w.isShortOfWater() ? "  SHORT: " + shortWords(w) : "  enough")
+    for (PlanDocument.Water w : plan.water()) {
+      sb.append("  ").append(w.source()).append(": peak ").append(fmt.flow(w.peakFlowM3H()))
+          .append(w.shortOfWater() ? " (full protection wants " + fmt.flow(w.wantedPeakFlowM3H())
+              + ")" : "")
+          .append(" of ").append(fmt.flow(w.maxFlowM3H())).append(", ")
+          .append(fmt.volume(w.volumeM3())).append(" of ")
+          .append(w.availableM3() == null ? "no volume limit" : fmt.volume(w.availableM3()))
+          .append(w.shortOfWater() ? "  SHORT: " + shortWords(w) : "  enough")
           .append('\n');
     }
 
     sb.append("\nCautions\n");
-    for (BlockPlan b : plan.blocks()) {
-      for (FiredRule c : b.cautions()) {
-        sb.append("  - ").append(b.blockId()).append(": ").append(render(c, units, zone)).append('\n');
+    for (PlanDocument.Block b : plan.blocks()) {
+      for (PlanDocument.Rule c : b.cautionRules()) {
+        sb.append("  - ").append(b.block()).append(": ").append(words.apply(c)).append('\n');
       }
     }
-    for (FiredRule c : plan.trail()) {
-      if (c.isCaution() && c.blockId() == null) {
-        sb.append("  - ").append(render(c, units, zone)).append('\n');
+    for (PlanDocument.Rule c : plan.farmRules()) {
+      if (c.isCaution()) {
+        sb.append("  - ").append(words.apply(c)).append('\n');
       }
     }
     for (String c : StandingCautions.ALL) {
@@ -98,17 +113,16 @@ public final class PlanText {
 
     if (explain) {
       sb.append("\nWhy (rules in the order they fired)\n");
-      for (BlockPlan b : plan.blocks()) {
-        sb.append("  ").append(b.blockId()).append('\n');
-        for (FiredRule r : b.rules()) {
-          sb.append("    ").append(r.ruleId()).append(": ").append(render(r, units, zone)).append('\n');
+      for (PlanDocument.Block b : plan.blocks()) {
+        sb.append("  ").append(b.block()).append('\n');
+        for (PlanDocument.Rule r : b.rules()) {
+          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
         }
       }
-      List<FiredRule> farmWide = plan.trail().stream().filter(r -> r.blockId() == null).toList();
-      if (!farmWide.isEmpty()) {
+      if (!plan.farmRules().isEmpty()) {
         sb.append("  farm-wide\n");
-        for (FiredRule r : farmWide) {
-          sb.append("    ").append(r.ruleId()).append(": ").append(render(r, units, zone)).append('\n');
+        for (PlanDocument.Rule r : plan.farmRules()) {
+          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
         }
       }
     } else {
@@ -117,35 +131,28 @@ public final class PlanText {
     return sb.toString();
   }
 
-  static String render(FiredRule r, UnitSystem units, ZoneId zone) {
-    return units == UnitSystem.METRIC ? r.explanation()
-        : Explanations.render(r.template(), r.values(), units, zone);
-  }
-
   /** One sprinkling row: what runs, at what rate, over how much of the block; no times without water. */
-  private static void sprinkleRow(String[] row, Action.Sprinkle s, UnitSystem units, ZoneId zone) {
-    int rd = units == UnitSystem.US ? 2 : 1;
-    String rate = Quantities.format(s.runRateMmH(), Dimension.RATE, units, rd);
-    String design = Quantities.format(s.designRateMmH(), Dimension.RATE, units, rd);
+  private static void sprinkleRow(String[] row, PlanDocument.Sprinkle s, UnitFormat fmt) {
+    String rate = fmt.rate(s.installedRateMmH());
+    String design = fmt.rate(s.designRateMmH());
     double blockHa = s.wantedFlowM3H() / (s.designRateMmH() * 10.0);
-    String part = Quantities.format(s.areaHa(), Dimension.AREA, units, 1) + " of "
-        + Quantities.format(blockHa, Dimension.AREA, units, 1);
-    String from = " from " + s.source() + (s.startsAtOnce() && s.withWater() ? ", START NOW" : "");
+    String part = fmt.area(s.areaHa()) + " of " + fmt.area(blockHa);
+    String from = " from " + s.source() + (s.startsAtOnce() && s.waterGranted() ? ", START NOW" : "");
     row[4] = switch (s.grant()) {
-      case FULL -> "sprinkle " + rate + from;
-      case REDUCED_RATE -> "sprinkle " + rate + " (installed " + design + ")" + from;
-      case SETS -> "sprinkle sets " + String.join(", ", s.sets()) + " (" + part + ") " + rate + from;
-      case PART_AREA -> "sprinkle " + part + " at " + rate + from;
-      case NONE -> "NO WATER from " + s.source() + ": keep sprinklers off";
+      case "reduced-rate" -> "sprinkle " + rate + " (installed " + design + ")" + from;
+      case "sets" -> "sprinkle sets " + String.join(", ", s.sets()) + " (" + part + ") " + rate + from;
+      case "part-area" -> "sprinkle " + part + " at " + rate + from;
+      case "none" -> "NO WATER from " + s.source() + ": keep sprinklers off";
+      default -> "sprinkle " + rate + from;
     };
-    if (s.withWater()) {
-      row[5] = clock(s.start(), zone);
-      row[6] = clock(s.stop(), zone);
-      row[7] = Quantities.format(s.waterM3(), Dimension.VOLUME, units, 0);
+    if (s.waterGranted()) {
+      row[5] = fmt.clock(s.start());
+      row[6] = fmt.clock(s.stop());
+      row[7] = fmt.volume(s.waterM3());
     }
   }
 
-  private static String shortWords(WaterEntry w) {
+  private static String shortWords(PlanDocument.Water w) {
     List<String> parts = new ArrayList<>();
     if (!w.part().isEmpty()) {
       parts.add("in part: " + String.join(", ", w.part()));
@@ -156,13 +163,14 @@ public final class PlanText {
     return parts.isEmpty() ? "rates reduced, every block protected whole" : String.join("; ", parts);
   }
 
-  private static String statusWord(BlockPlan b) {
+  /** How a block's status reads in the table. */
+  public static String statusWord(PlanDocument.Block b) {
     return switch (b.status()) {
-      case NOT_NEEDED -> "nothing needed";
-      case UNPROTECTED -> "UNPROTECTED: no method available";
-      case SHORT_OF_WATER -> "SHORT OF WATER";
-      case PARTLY_PROTECTED -> "PROTECTED IN PART, the rest unprotected";
-      default -> word(b.status());
+      case "not-needed" -> "nothing needed";
+      case "unprotected" -> "UNPROTECTED: no method available";
+      case "short-of-water" -> "SHORT OF WATER";
+      case "partly-protected" -> "PROTECTED IN PART, the rest unprotected";
+      default -> b.status();
     };
   }
 
@@ -184,21 +192,5 @@ public final class PlanText {
       }
       sb.append(line.toString().stripTrailing()).append('\n');
     }
-  }
-
-  private static String temp(double c, UnitSystem units) {
-    return Quantities.format(c, Dimension.TEMPERATURE, units, 1);
-  }
-
-  private static String clock(Instant t, ZoneId zone) {
-    return t == null ? "?" : CLOCK.format(t.atZone(zone));
-  }
-
-  private static String day(Instant t, ZoneId zone) {
-    return DAY_CLOCK.format(t.atZone(zone));
-  }
-
-  private static String word(Enum<?> e) {
-    return e.name().toLowerCase(Locale.ROOT).replace('_', '-');
   }
 }

@@ -36,10 +36,18 @@ class ReplayDiffTest {
 
   @Test
   void addedAndRemovedValuesAreNamed() throws Exception {
-    List<Replay.Difference> d = diff("{\"a\":[1,2],\"gone\":true}", "{\"a\":[1],\"new\":\"x\"}");
-    assertThat(d).extracting(Replay.Difference::path).containsExactly("/a/1", "/gone", "/new");
-    assertThat(d.get(0).now()).isNull();
-    assertThat(d.get(2).recorded()).isNull();
+    List<Replay.Difference> d = diff("{\"a\":[1,2],\"gone\":true}", "{\"a\":[1,2,3]}");
+    assertThat(d).extracting(Replay.Difference::path).containsExactly("/a/2", "/gone");
+    assertThat(d.get(0).recorded()).isNull();
+    assertThat(d.get(1).now()).isNull();
+  }
+
+  /** A run recorded by an older version lacks the keys added since: that is no difference. */
+  @Test
+  void aKeyTheRecordedRunDidNotWriteIsNoDifference() throws Exception {
+    assertThat(diff("{\"blocks\":[{\"block\":\"a\",\"status\":\"protected\"}]}",
+        "{\"blocks\":[{\"block\":\"a\",\"status\":\"protected\",\"stage_name\":\"Full bloom\"}]}"))
+        .isEmpty();
   }
 
   @Test

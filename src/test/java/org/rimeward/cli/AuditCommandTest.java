@@ -127,23 +127,27 @@ class AuditCommandTest {
     assertThat(r.out()).contains("exported run " + NEW + " as csv to");
     try (CSVParser p = CSVParser.parse(Files.readString(out),
         CSVFormat.DEFAULT.builder().setHeader().get())) {
-      assertThat(p.getHeaderNames()).containsExactly("run_id", "night", "block", "crop", "stage",
-          "status", "risk", "method", "start", "stop", "water_m3", "source", "first_rule",
-          "done_start", "done_stop");
+      // The plan's own CSV schema, with the run id in front.
+      assertThat(p.getHeaderNames()).containsExactly("run_id", "night", "block", "crop", "variety",
+          "stage", "risk", "kill_pct_unprotected", "status", "method", "start", "stop",
+          "required_rate_mm_h", "installed_rate_mm_h", "water_m3", "source", "water_granted",
+          "area_ha", "flow_m3_h", "grant", "decision_rules", "done_start", "done_stop");
       var rows = p.getRecords();
       assertThat(rows).hasSize(3);
       CSVRecord gala = rows.get(0);
       assertThat(gala.get("block")).isEqualTo("north-gala");
       assertThat(gala.get("method")).isEqualTo("sprinkle");
-      assertThat(gala.get("start")).isEqualTo("2026-04-16T01:10:00+02:00");
-      assertThat(gala.get("stop")).isEqualTo("2026-04-16T07:05:00+02:00");
+      assertThat(gala.get("run_id")).isEqualTo(NEW);
+      assertThat(gala.get("start")).isEqualTo("2026-04-16T01:10+02:00");
+      assertThat(gala.get("stop")).isEqualTo("2026-04-16T07:05+02:00");
       assertThat(gala.get("water_m3")).isEqualTo("412.0");
       assertThat(gala.get("source")).isEqualTo("pond");
-      assertThat(gala.get("first_rule")).isEqualTo("risk.below-t10");
+      // The decisions behind the row, not merely the first rule that fired for the block.
+      assertThat(gala.get("decision_rules")).isEqualTo("protect.sprinkle");
       assertThat(rows.get(1).get("method")).isEqualTo("none");
       assertThat(rows.get(1).get("status")).isEqualTo("not-needed");
       assertThat(rows.get(2).get("method")).isEqualTo("cover");
-      assertThat(rows.get(2).get("stop")).isEqualTo("2026-04-16T09:00:00+02:00");
+      assertThat(rows.get(2).get("stop")).isEqualTo("2026-04-16T09:00+02:00");
     }
     try (var files = Files.list(farm)) {
       assertThat(files.map(f -> f.getFileName().toString())).noneMatch(f -> f.endsWith(".tmp"));

@@ -33,7 +33,7 @@ class DemoPlanGoldenTest {
   void demoPlanMatchesTheReviewedCopy() throws IOException {
     ObjectNode tree = PlanJson.toTree(plan);
     tree.put("tool_version", "(any)");
-    String actual = PlanJson.mapper().writeValueAsString(tree) + "\n";
+    String actual = org.rimeward.io.Json.pretty(tree);
     if (Boolean.getBoolean("rimeward.golden.update")) {
       Files.writeString(GOLDEN, actual);
     }

@@ -1,0 +1,178 @@
+package org.rimeward.plan;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.time.Instant;
+import java.time.OffsetDateTime;
+import java.time.ZoneId;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.rimeward.io.Json;
+import org.rimeward.rules.FiredRule;
+import org.rimeward.rules.facts.Measure;
+import org.rimeward.rules.facts.Moment;
+import org.rimeward.rules.facts.NightSeries;
+
+/**
+ * Makes the {@link PlanDocument} of a plan: times in the farm's zone to the minute, enums as
+ * lower-case words, the farm-wide rules apart from each block's.
+ */
+public final class PlanDocuments {
+  private PlanDocuments() {}
+
+  /**
+   * The document as it reads back from its JSON, numbers rounded as written: what a recorded
+   * run gives its renderers. Tonight's renderers take {@link #of} instead, so that a whole number
+   * of cubic metres is rounded once, from the plan's own figure.
+   */
+  public static PlanDocument canonical(Plan plan) {
+    return PlanJson.read(Json.compact(of(plan)));
+  }
+
+  /** The document with the plan's numbers unrounded; JSON rounds them as it writes. */
+  public static PlanDocument of(Plan plan) {
+    ZoneId zone = plan.night().zone();
+    NightSummary n = plan.night();
+    PlanDocument.Night night = new PlanDocument.Night(n.date(), zone.getId(),
+        time(n.sunset(), zone), time(n.sunrise(), zone), time(n.coldestAt(), zone), n.minAirC());
+    PlanDocument.Policy policy = new PlanDocument.Policy(plan.policy().target(),
+        plan.policy().startMarginC(), plan.policy().stopRule());
+    List<PlanDocument.Block> blocks = new ArrayList<>();
+    for (BlockPlan b : plan.blocks()) {
+      blocks.add(block(b, zone));
+    }
+    List<PlanDocument.Water> water = new ArrayList<>();
+    for (WaterEntry w : plan.water()) {
+      water.add(new PlanDocument.Water(
+          w.source(),
+          w.peakFlowM3H(),
+          w.wantedPeakFlowM3H(),
+          w.maxFlowM3H(),
+          w.volumeM3(),
+          w.wantedVolumeM3(),
+          Double.isNaN(w.availableM3()) ? null : w.availableM3(),
+          w.isShortOfWater(),
+          w.served(),
+          w.part(),
+          w.without()));
+    }
+    List<PlanDocument.Rule> farmRules = plan.trail().stream().filter(r -> r.blockId() == null)
+        .map(r -> rule(r, zone)).toList();
+    return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
+        plan.cautions(), farmRules);
+  }
+
+  private static PlanDocument.Block block(BlockPlan b, ZoneId zone) {
+    List<PlanDocument.Action> actions = new ArrayList<>();
+    for (Action a : b.actions()) {
+      if (a instanceof Action.Sprinkle s) {
+        // No water, no times: a crew must not read a start and stop as "sprinkle".
+        actions.add(new PlanDocument.Sprinkle(
+            s.withWater() ? time(s.start(), zone) : null,
+            s.withWater() ? time(s.stop(), zone) : null,
+            s.startsAtOnce(),
+            s.requiredRateMmH(),
+            s.designRateMmH(),
+            s.runRateMmH(),
+            s.flowM3H(),
+            s.areaHa(),
+            s.waterM3(),
+            s.wantedFlowM3H(),
+            s.wantedWaterM3(),
+            s.source(),
+            s.withWater(),
+            word(s.grant()),
+            s.sets()));
+      } else if (a instanceof Action.Cover c) {
+        actions.add(new PlanDocument.Cover(time(c.deployStart(), zone), time(c.deployBy(), zone),
+            time(c.remove(), zone), c.protectionC(), c.sufficient()));
+      }
+    }
+    return new PlanDocument.Block(
+        b.blockId(),
+        b.crop(),
+        b.variety(),
+        b.stage(),
+        b.stageName(),
+        b.t10C(),
+        b.t90C(),
+        b.thresholdSource(),
+        b.targetC(),
+        b.minAirC(),
+        b.minBudC(),
+        b.minWetBulbC(),
+        time(b.coldestAt(), zone),
+        b.coldestLine(),
+        word(b.risk()),
+        b.killPctUnprotected(),
+        word(b.status()),
+        actions,
+        b.cautions().stream().map(FiredRule::explanation).toList(),
+        b.rules().stream().map(r -> rule(r, zone)).toList(),
+        b.atRisk() ? series(b.series(), zone) : List.of());
+  }
+
+  private static List<PlanDocument.Step> series(NightSeries s, ZoneId zone) {
+    List<PlanDocument.Step> out = new ArrayList<>(s.size());
+    for (int i = 0; i < s.size(); i++) {
+      out.add(new PlanDocument.Step(time(s.timeAt(i), zone), s.lineAt(i),
+          s.valueAt(Measure.AIR_C, i), s.valueAt(Measure.DRY_BUD_C, i),
+          s.valueAt(Measure.WET_BUD_C, i), s.valueAt(Measure.WET_BULB_C, i),
+          s.valueAt(Measure.WIND_2M_MS, i)));
+    }
+    return out;
+  }
+
+  static PlanDocument.Rule rule(FiredRule r, ZoneId zone) {
+    ObjectNode values = JsonNodeFactory.instance.objectNode();
+    for (Map.Entry<String, Object> e : r.values().entrySet()) {
+      values.set(e.getKey(), value(e.getValue(), zone));
+    }
+    return new PlanDocument.Rule(r.seq(), r.ruleId(), r.kind(), r.explanation(), values);
+  }
+
+  private static JsonNode value(Object v, ZoneId zone) {
+    JsonNodeFactory f = JsonNodeFactory.instance;
+    if (v == null) {
+      return f.nullNode();
+    }
+    if (v instanceof Moment m) {
+      ObjectNode o = f.objectNode();
+      o.put("at", Json.time(time(m.at(), zone)));
+      o.put("value", Json.round(m.value(), 2));
+      o.put("forecast_line", m.line());
+      return o;
+    }
+    if (v instanceof Instant t) {
+      return f.textNode(Json.time(time(t, zone)));
+    }
+    if (v instanceof Integer || v instanceof Long) {
+      return f.numberNode(((Number) v).longValue());
+    }
+    if (v instanceof Number n) {
+      double d = n.doubleValue();
+      return Double.isFinite(d) ? f.numberNode(Json.round(d, 3)) : f.nullNode();
+    }
+    if (v instanceof Boolean b) {
+      return f.booleanNode(b);
+    }
+    if (v instanceof Enum<?> e) {
+      return f.textNode(word(e));
+    }
+    return f.textNode(v.toString());
+  }
+
+  /** The local time of {@code t} in {@code zone}, to the minute, as the plan shows times. */
+  static OffsetDateTime time(Instant t, ZoneId zone) {
+    return t == null ? null : t.atZone(zone).toOffsetDateTime().truncatedTo(ChronoUnit.MINUTES);
+  }
+
+  /** An enum constant as the plan writes it: {@code SHORT_OF_WATER} as {@code short-of-water}. */
+  public static String word(Enum<?> e) {
+    return e.name().toLowerCase(Locale.ROOT).replace('_', '-');
+  }
+}
