@@ -5,5 +5,6 @@ public enum InputKind {
   FARM,
   FORECAST,
   CROP_PROFILE,
-  RULE
+  RULE,
+  READINGS
 }

@@ -159,6 +159,9 @@ public final class Replay {
           case FORECAST -> forecast = inside(farmDir, in, run);
           case CROP_PROFILE -> inside(profiles, in, run);
           case RULE -> inside(rules, in, run);
+          case READINGS -> throw new org.rimeward.io.BadInputException("run " + run.runId()
+              + " re-planned the night from station readings; replaying such a run is not"
+              + " supported yet: replay the evening's run instead");
         };
         Files.createDirectories(target.getParent());
         Files.write(target, in.content());

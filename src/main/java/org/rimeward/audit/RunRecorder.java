@@ -53,6 +53,7 @@ public final class RunRecorder {
       case FORECAST -> InputKind.FORECAST;
       case CROP_PROFILE -> InputKind.CROP_PROFILE;
       case RULE -> InputKind.RULE;
+      case READINGS -> InputKind.READINGS;
     };
   }
 }

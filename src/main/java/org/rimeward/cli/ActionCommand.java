@@ -113,6 +113,22 @@ final class ActionCommand implements Callable<Integer> {
     return Main.OK;
   }
 
+  /** A date-time with an offset, or local in the farm's zone; {@code option} names it in errors. */
+  static Instant parseTime(String text, String option, ZoneId zone) {
+    String t = text.strip().replaceFirst("^(\\d{4}-\\d{2}-\\d{2}) ", "$1T");
+    try {
+      return OffsetDateTime.parse(t).toInstant();
+    } catch (DateTimeParseException e) {
+      // not with an offset
+    }
+    try {
+      return LocalDateTime.parse(t).atZone(zone).toInstant();
+    } catch (DateTimeParseException e) {
+      throw new BadInputException(option + ": '" + text + "' is not a time; give"
+          + " 2026-04-15T00:30-07:00, or 2026-04-15T00:30 local to the farm (" + zone + ")");
+    }
+  }
+
   /** A local clock time, a local date-time in the farm's zone, or a time with an offset. */
   static Instant parseAt(String text, ZoneId zone, Instant now) {
     String t = text.strip().replaceFirst("^(\\d{4}-\\d{2}-\\d{2}) ", "$1T");

@@ -67,6 +67,19 @@ final class PlanCommand implements Callable<Integer> {
   @Option(names = "--no-audit", description = "Do not record this run in the audit trail.")
   boolean noAudit;
 
+  @Option(names = "--readings", paramLabel = "FILE", description = "The station's readings CSV:"
+      + " re-plan the rest of the night from now, readings replacing the forecast up to now and"
+      + " correcting it after (see the README).")
+  Path readings;
+
+  @Option(names = "--now", paramLabel = "TIME", description = "With --readings: the time to plan"
+      + " from, e.g. 2026-04-15T00:30-07:00 or local 2026-04-15T00:30 (default: the clock).")
+  String now;
+
+  @Option(names = "--station", paramLabel = "ID", description = "With --readings: the station to"
+      + " plan by (default: the only one, or the one running coldest against the forecast).")
+  String station;
+
   @Override
   public Integer call() {
     if (noAudit && audit != null) {
@@ -74,8 +87,15 @@ final class PlanCommand implements Callable<Integer> {
           + " records nothing, so it has no file to record in");
     }
     Instant ranAt = root.clock.instant();
-    Plan plan = new NightPlanner().plan(new PlanRequest(farm, forecast, folders.cropProfiles(),
-        folders.rules(), night));
+    PlanRequest request = new PlanRequest(farm, forecast, folders.cropProfiles(), folders.rules(),
+        night);
+    if (readings == null && (now != null || station != null)) {
+      throw new BadInputException((now != null ? "--now" : "--station") + ": only means something"
+          + " with --readings FILE; give the station's readings, or leave it out");
+    }
+    Plan plan = readings == null ? new NightPlanner().plan(request)
+        : NightReplan.run(request, readings, now, station, ranAt,
+            audit != null ? audit : AuditStore.fileFor(farm));
     var out = root.spec.commandLine().getOut();
     switch (format) {
       case JSON -> out.print(PlanJson.toText(plan));

@@ -96,6 +96,42 @@ public final class RadiationNights {
     return out;
   }
 
+  /**
+   * Tonight so far, for the site model: T0 and Td0 at sunset + 2 h when the readings reach past
+   * it, and why the night does not look like a radiation night if it does not (judged on the
+   * readings from sunset to {@code now}, by the same criteria as the fit).
+   */
+  public static Optional<NightSample> tonight(List<Reading> readings, LocalDate date, Instant sunset,
+      Instant now, Criteria k) {
+    Instant t0 = sunset.plus(AFTER_SUNSET);
+    if (now.isBefore(t0) || readings.isEmpty()) {
+      return Optional.empty();
+    }
+    double air0 = interpolate(readings, t0, Reading::airTempC, k.maxGap());
+    double dew0 = interpolate(readings, t0, r -> r.dewPointC().isPresent()
+        ? r.dewPointC().getAsDouble() : Double.NaN, k.maxGap());
+    if (Double.isNaN(air0) || Double.isNaN(dew0)) {
+      return Optional.empty();
+    }
+    List<Reading> night = readings.stream().filter(r -> !r.time().isBefore(sunset)
+        && !r.time().isAfter(now)).toList();
+    double wind = mean(night, Reading::windMs);
+    double cloud = mean(night, Reading::cloudPct);
+    double early = interpolate(readings, sunset, Reading::airTempC, k.maxGap()) - air0;
+    Optional<String> why = Optional.empty();
+    if (!Double.isNaN(wind) && wind > k.maxWindMs()) {
+      why = Optional.of(String.format(Locale.ROOT, "windy: mean %.1f m/s > %.1f m/s", wind, k.maxWindMs()));
+    } else if (!Double.isNaN(cloud) && cloud > k.maxCloudPct()) {
+      why = Optional.of(String.format(Locale.ROOT, "cloudy: mean %.0f %% > %.0f %%", cloud, k.maxCloudPct()));
+    } else if (Double.isNaN(cloud) && !(early >= k.minEarlyCoolingC())) {
+      why = Optional.of(String.format(Locale.ROOT, "not a radiation night by the cooling proxy:"
+          + " %.1f °C fall from sunset to sunset + 2 h", early));
+    } else if (Double.isNaN(cloud) && air0 - dew0 < k.minDepressionC()) {
+      why = Optional.of("near saturation at sunset + 2 h (fog or dew)");
+    }
+    return Optional.of(new NightSample(date, t0, air0, dew0, Double.NaN, wind, cloud, early, why));
+  }
+
   /** The index of the first reading at or after {@code t} (the size when there is none). */
   private static int indexAtOrAfter(List<Reading> readings, Instant t) {
     int lo = 0;

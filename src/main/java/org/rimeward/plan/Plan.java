@@ -11,7 +11,19 @@ import org.rimeward.rules.FiredRule;
  */
 public record Plan(String farmName, String toolVersion, NightSummary night, PlanPolicy policy,
     List<BlockPlan> blocks, List<WaterEntry> water, List<String> cautions, List<FiredRule> trail,
-    PlanInputs inputs) {
+    PlanInputs inputs, NightUpdate update) {
+  /** A plan made at dusk, from the forecast alone. */
+  public Plan(String farmName, String toolVersion, NightSummary night, PlanPolicy policy,
+      List<BlockPlan> blocks, List<WaterEntry> water, List<String> cautions, List<FiredRule> trail,
+      PlanInputs inputs) {
+    this(farmName, toolVersion, night, policy, blocks, water, cautions, trail, inputs, null);
+  }
+
+  /** The same plan re-made during the night; {@code update} says from when and with what. */
+  public Plan withUpdate(NightUpdate u) {
+    return new Plan(farmName, toolVersion, night, policy, blocks, water, cautions, trail, inputs, u);
+  }
+
   public Plan {
     blocks = List.copyOf(blocks);
     water = List.copyOf(water);

@@ -29,7 +29,16 @@ public record PlanDocument(
     List<Block> blocks,
     List<Water> water,
     List<String> cautions,
-    List<Rule> farmRules) {
+    List<Rule> farmRules,
+    @JsonInclude(JsonInclude.Include.NON_NULL) OffsetDateTime now,
+    @JsonInclude(JsonInclude.Include.NON_NULL) Readings readings,
+    @JsonInclude(JsonInclude.Include.NON_NULL) List<Change> changes) {
+  /** A plan made at dusk: no {@code now}, {@code readings} or {@code changes}. */
+  public PlanDocument(String farm, String toolVersion, Night night, Policy policy,
+      List<Block> blocks, List<Water> water, List<String> cautions, List<Rule> farmRules) {
+    this(farm, toolVersion, night, policy, blocks, water, cautions, farmRules, null, null, null);
+  }
+
   public PlanDocument {
     blocks = blocks == null ? List.of() : List.copyOf(blocks);
     water = water == null ? List.of() : List.copyOf(water);
@@ -47,6 +56,45 @@ public record PlanDocument(
   public Optional<Block> block(String id) {
     return blocks.stream().filter(b -> b.block().equals(id)).findFirst();
   }
+
+  /**
+   * What the station's readings showed in a re-plan during the night (see {@code NightUpdate}).
+   *
+   * @param biasC observed − forecast air over the last hour, null when no reading fell in it
+   * @param stale no reading in the last hour
+   */
+  public record Readings(
+      String file,
+      OffsetDateTime lastAt,
+      @JsonSerialize(using = Decimals.Two.class) Double biasC,
+      @JsonSerialize(using = Decimals.Two.class) Double dewPointBiasC,
+      List<String> stations,
+      String station,
+      String method,
+      String methodText,
+      int rows,
+      int rowsSkipped,
+      List<String> skipped,
+      boolean stale,
+      SiteMinimum siteMinimum) {
+    public Readings {
+      stations = stations == null ? List.of() : List.copyOf(stations);
+      skipped = skipped == null ? List.of() : List.copyOf(skipped);
+    }
+  }
+
+  /** The site model's minimum beside the corrected forecast's (FAO 2005 ch. 6). */
+  public record SiteMinimum(
+      @JsonSerialize(using = Decimals.Two.class) double t0C,
+      @JsonSerialize(using = Decimals.Two.class) double td0C,
+      @JsonSerialize(using = Decimals.Two.class) double minAirC,
+      @JsonSerialize(using = Decimals.Two.class) double intervalHalfWidthC,
+      @JsonSerialize(using = Decimals.Two.class) Double forecastMinAirC,
+      boolean used,
+      String why) {}
+
+  /** A decision that moved since the latest recorded plan for the night. */
+  public record Change(String block, String what, String before, String after, String text) {}
 
   /** The night at the forecast point. */
   public record Night(

@@ -62,8 +62,14 @@ public final class PlanDocuments {
     }
     List<PlanDocument.Rule> farmRules = plan.trail().stream().filter(r -> r.blockId() == null)
         .map(r -> rule(r, zone)).toList();
+    NightUpdate u = plan.update();
+    if (u == null) {
+      return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
+          plan.cautions(), farmRules);
+    }
     return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
-        plan.cautions(), farmRules);
+        plan.cautions(), farmRules, time(u.now(), zone), NightUpdateView.readings(u, zone),
+        NightUpdateView.changes(u));
   }
 
   private static PlanDocument.Block block(BlockPlan b, ZoneId zone) {

@@ -13,7 +13,9 @@ public record PlanInputs(List<Input> files) {
     FARM,
     FORECAST,
     CROP_PROFILE,
-    RULE
+    RULE,
+    /** The station's readings a re-plan during the night corrected the forecast with. */
+    READINGS
   }
 
   /** One input: its kind, its name relative to its folder, and its bytes. */

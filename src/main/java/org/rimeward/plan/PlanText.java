@@ -40,6 +40,10 @@ public final class PlanText {
   public static String render(PlanDocument plan, UnitFormat fmt, boolean explain,
       Function<PlanDocument.Rule, String> words) {
     StringBuilder sb = new StringBuilder();
+    // A re-plan during the night says first what changed; past times read as due or overdue.
+    if (plan.now() != null) {
+      sb.append(NightUpdateView.header(plan, fmt));
+    }
     PlanDocument.Night n = plan.night();
     sb.append("Frost plan for ").append(plan.farm()).append(", night of ").append(n.date())
         .append(" (").append(n.zone()).append(")\n");
@@ -66,10 +70,10 @@ public final class PlanText {
         first = false;
         if (a instanceof PlanDocument.Cover c) {
           row[4] = c.sufficient() ? "covers on" : "covers on (not enough alone)";
-          row[5] = fmt.clock(c.deployStart());
-          row[6] = fmt.clock(c.remove());
+          row[5] = NightUpdateView.when(c.deployStart(), plan.now(), fmt);
+          row[6] = NightUpdateView.when(c.remove(), plan.now(), fmt);
         } else if (a instanceof PlanDocument.Sprinkle s) {
-          sprinkleRow(row, s, fmt);
+          sprinkleRow(row, s, fmt, plan.now());
         }
         rows.add(row);
       }
@@ -132,7 +136,8 @@ public final class PlanText {
   }
 
   /** One sprinkling row: what runs, at what rate, over how much of the block; no times without water. */
-  private static void sprinkleRow(String[] row, PlanDocument.Sprinkle s, UnitFormat fmt) {
+  private static void sprinkleRow(String[] row, PlanDocument.Sprinkle s, UnitFormat fmt,
+      java.time.OffsetDateTime now) {
     String rate = fmt.rate(s.installedRateMmH());
     String design = fmt.rate(s.designRateMmH());
     double blockHa = s.wantedFlowM3H() / (s.designRateMmH() * 10.0);
@@ -146,8 +151,8 @@ public final class PlanText {
       default -> "sprinkle " + rate + from;
     };
     if (s.waterGranted()) {
-      row[5] = fmt.clock(s.start());
-      row[6] = fmt.clock(s.stop());
+      row[5] = NightUpdateView.when(s.start(), now, fmt);
+      row[6] = NightUpdateView.when(s.stop(), now, fmt);
       row[7] = fmt.volume(s.waterM3());
     }
   }
