@@ -1,13 +1,19 @@
 package org.rimeward.cli;
 
+import java.nio.file.Path;
+import java.time.ZoneOffset;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import org.rimeward.farm.Sprinklers;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.BundledData;
 import org.rimeward.physics.Atmosphere;
 import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.physics.SprinklerBalance;
 import org.rimeward.physics.Wind;
+import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.facts.Thresholds;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
@@ -22,6 +28,8 @@ import picocli.CommandLine.Spec;
         + " temperature (--temp), or the lowest air temperature a rate protects to (--rate).",
         "Energy balance of iced 10 mm twigs in the wind, checked against the UF/IFAS and MSU rate"
         + " tables; clear sky unless --cloud is given.",
+        "Says whether sprinkling is advised in that wind, by the wind limits the rule files set"
+            + " (rule THRESHOLDS, policy/thresholds.drl), and why.",
         "Decision support: uniform coverage and clear ice matter as much as the rate."},
     footer = {"", Cautions.HELP_FOOTER})
 final class CalcRateCommand implements Runnable {
@@ -63,6 +71,10 @@ final class CalcRateCommand implements Runnable {
   @Option(names = "--elevation", paramLabel = "Z", description = "Elevation, e.g. 240 m or 800 ft (default 0 m).")
   String elevation;
 
+  @Option(names = "--rules", paramLabel = "DIR",
+      description = "Folder of .drl rule files whose wind limits decide 'advised' (default: ./rules if present, else the bundled rules).")
+  Path rules;
+
   @Option(names = "--json", description = "Print one JSON object (always metric).")
   boolean json;
 
@@ -84,14 +96,24 @@ final class CalcRateCommand implements Runnable {
         : CalcOutput.temperature(waterTemp, "--water-temp", units);
     double pressureKPa = Atmosphere.stationPressureKPa(
         elevation == null ? 0 : Quantities.parse(elevation, Dimension.LENGTH, "--elevation"));
+    // The rule files state their wind limits against the reported 10 m wind.
+    double wind10mMs = wind2mMs / Wind.at2mMs(1.0, 10.0);
+    Thresholds limits = limits();
+    UnitSystem shown = json ? UnitSystem.METRIC : units;
     Map<String, Object> m = new LinkedHashMap<>();
     String line;
+    Advice advice;
     if (target.temp != null) {
       double airC = CalcOutput.temperature(target.temp, "--temp", units);
       double rate = SprinklerBalance.requiredRateMmH(airC, dewC, wind2mMs, waterC, pressureKPa, cloudPct);
       m.put("required_rate_mm_h", CalcOutput.round(rate, 2));
       line = "required over-plant rate " + rate(rate, units)
           + " to hold iced buds at 0 °C with the air at " + CalcOutput.temp(airC, units);
+      advice = airC >= 0
+          ? new Advice(true, "The air, " + CalcOutput.temp(airC, shown) + ", is not below freezing,"
+              + " so the wind limit does not apply; sprinkling at this hour needs at least "
+              + rate(rate, shown) + ".")
+          : windAdvice(limits, wind10mMs, wind2mMs, "At least " + rate(rate, shown), shown);
     } else {
       double rate = Quantities.parse(target.rate, Dimension.RATE, "--rate");
       SprinklerBalance.Protection p = SprinklerBalance.protection(rate, dewC, wind2mMs, waterC,
@@ -115,9 +137,16 @@ final class CalcRateCommand implements Runnable {
             + " ice on the buds wet in this wind and dry air, and sprinkling with it can leave buds"
             + " colder than none";
       };
+      advice = p.limit() == SprinklerBalance.Limit.FREEZING
+          ? new Advice(false, rate(rate, shown) + " falls short even with the air"
+              + " at 0 °C in this wind and dew point, and wet buds short of water end colder than dry ones.")
+          : windAdvice(limits, wind10mMs, wind2mMs, "At " + rate(rate, shown), shown);
     }
     if (json) {
+      m.put("wind_10m_ms", CalcOutput.round(wind10mMs, 2));
       m.put("wind_2m_ms", CalcOutput.round(wind2mMs, 2));
+      m.put("advised", advice.advised());
+      m.put("reason", advice.reason());
       CalcOutput.printJson(spec, m);
       return;
     }
@@ -126,6 +155,49 @@ final class CalcRateCommand implements Runnable {
         + Quantities.format(heightM, Dimension.LENGTH, units, 0) + ", "
         + Quantities.format(wind2mMs, Dimension.SPEED, units, 1) + " at 2 m, cloud "
         + Math.round(cloudPct) + " %, water " + CalcOutput.temp(waterC, units) + ")");
+    CalcOutput.printLine(spec, (advice.advised() ? "Advised. " : "Not advised. ") + advice.reason());
+  }
+
+  /** Whether sprinkling is advised, and why in the user's words and units. */
+  record Advice(boolean advised, String reason) {}
+
+  /**
+   * The wind limits as the rule files set them (rule THRESHOLDS), so this command and the plan
+   * judge wind by the same numbers, kept in one place.
+   */
+  private Thresholds limits() {
+    Path folder = rules != null ? rules : BundledData.folder("rules");
+    List<Thresholds> found = RuleBook.load(folder).run(List.of(), ZoneOffset.UTC).all(Thresholds.class);
+    if (found.size() != 1) {
+      throw new BadInputException(folder + ": the rule files set no wind limits (rule THRESHOLDS in"
+          + " policy/thresholds.drl); restore that rule or pass --rules with a folder that has it");
+    }
+    return found.get(0);
+  }
+
+  /** Below freezing: the rule files' wind bands, stated against the 10 m wind. */
+  private static Advice windAdvice(Thresholds limits, double wind10mMs, double wind2mMs,
+      String lead, UnitSystem shown) {
+    String wind = "the wind, " + speed(wind10mMs, shown) + " at "
+        + Quantities.format(10.0, Dimension.LENGTH, shown, 0) + " (" + speed(wind2mMs, shown)
+        + " at " + Quantities.format(2.0, Dimension.LENGTH, shown, 0) + "),";
+    if (wind10mMs > limits.windyWind10mMs()) {
+      return new Advice(false, "T" + wind.substring(1) + " is above "
+          + speed(limits.windyWind10mMs(), shown) + ", the rule files' limit for over-plant"
+          + " sprinkling alone: in a wind-borne freeze wet buds can end colder than dry ones; covers"
+          + " with sprinkling over them, or none, are what is left.");
+    }
+    if (wind10mMs > limits.breezyWind10mMs()) {
+      return new Advice(true, lead + ": " + wind + " is above "
+          + speed(limits.breezyWind10mMs(), shown) + ", so wet buds lose heat faster and sprinkling"
+          + " needs more water; check that the ice stays clear.");
+    }
+    return new Advice(true, lead + ": " + wind + " is at or below "
+        + speed(limits.breezyWind10mMs(), shown) + ".");
+  }
+
+  private static String speed(double ms, UnitSystem units) {
+    return Quantities.format(ms, Dimension.SPEED, units, 1);
   }
 
   private static String rate(double mmH, UnitSystem units) {

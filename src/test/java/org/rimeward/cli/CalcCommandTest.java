@@ -101,11 +101,11 @@ class CalcCommandTest {
   void rateJsonBothWays() throws Exception {
     // UF/IFAS Circ. 287 as printed by MSU Extension: 0.16 in/h (4.06 mm/h) at 22 °F, wind 0-1 mph.
     JsonNode need = json("calc", "rate", "--temp", "22F", "--dew-point", "-8.6C", "--wind", "0.5 mph", "--json");
-    assertThat(keys(need)).containsExactly("required_rate_mm_h", "wind_2m_ms");
+    assertThat(keys(need)).containsExactly("required_rate_mm_h", "wind_10m_ms", "wind_2m_ms", "advised", "reason");
     assertThat(need.get("required_rate_mm_h").asDouble()).isCloseTo(4.06, within(0.3 * 4.06));
     assertThat(need.get("wind_2m_ms").asDouble()).as("FAO-56 Eq. 47 from 10 m").isCloseTo(0.167, within(0.01));
     JsonNode to = json("calc", "rate", "--rate", "0.16 in/h", "--dew-point", "-8.6C", "--wind", "0.5 mph", "--json");
-    assertThat(keys(to)).containsExactly("protects_to_c", "limited_by", "wind_2m_ms");
+    assertThat(keys(to)).containsExactly("protects_to_c", "limited_by", "wind_10m_ms", "wind_2m_ms", "advised", "reason");
     assertThat(to.get("protects_to_c").asDouble()).isCloseTo(-5.6, within(1.7));
     assertThat(to.get("limited_by").asText()).isEqualTo("air-temperature");
     Cli.Result r = Cli.run("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "2 m/s",
@@ -116,16 +116,62 @@ class CalcCommandTest {
   }
 
   @Test
-  void rateAnswersInAnyWind() throws Exception {
-    // The need keeps rising with wind; whether to sprinkle in it is a separate question.
-    double at4 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4 m/s", "--json")
-        .get("required_rate_mm_h").asDouble();
-    double at8 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "8 m/s", "--json")
-        .get("required_rate_mm_h").asDouble();
-    double at12 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "12 m/s", "--json")
-        .get("required_rate_mm_h").asDouble();
-    assertThat(at8).isGreaterThan(at4);
-    assertThat(at12).isGreaterThan(at8).isLessThan(100);
+  void rateAnswersInAnyWindAndSaysWhetherItIsAdvised() throws Exception {
+    // The need keeps rising with wind; whether to sprinkle in it is the rule files' wind limit.
+    JsonNode at4 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4 m/s", "--json");
+    JsonNode at8 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "8 m/s", "--json");
+    JsonNode at12 = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "12 m/s", "--json");
+    assertThat(at8.get("required_rate_mm_h").asDouble()).isGreaterThan(at4.get("required_rate_mm_h").asDouble());
+    assertThat(at12.get("required_rate_mm_h").asDouble()).isGreaterThan(at8.get("required_rate_mm_h").asDouble())
+        .isLessThan(100);
+    assertThat(at4.get("advised").asBoolean()).as(at4.toString()).isTrue();
+    assertThat(at4.get("reason").asText()).contains("4.0 m/s at 10 m").contains("needs more water");
+    for (JsonNode windy : List.of(at8, at12)) {
+      assertThat(windy.get("advised").asBoolean()).as(windy.toString()).isFalse();
+      assertThat(windy.get("reason").asText()).startsWith("The wind, ")
+          .contains("at 10 m").contains("the rule files' limit");
+    }
+    Cli.Result text = Cli.run("calc", "rate", "--temp", "24F", "--dew-point", "18F", "--wind", "12 m/s",
+        "--units", "us");
+    assertThat(text.out().lines().toList()).hasSize(2);
+    assertThat(text.out().lines().toList().get(1)).startsWith("Not advised. The wind, 26.8 mph at 33 ft (20.1 mph at 7 ft)");
+  }
+
+  @Test
+  void theWindLimitIsTheOneTheRuleFilesSet(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp)
+      throws Exception {
+    // Near miss either side of the bundled limit, then the same wind under a rule folder whose
+    // THRESHOLDS rule allows more: calc follows the rule files, not a number of its own.
+    JsonNode under = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4.4 m/s", "--json");
+    JsonNode over = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4.6 m/s", "--json");
+    assertThat(under.get("advised").asBoolean()).isTrue();
+    assertThat(over.get("advised").asBoolean()).isFalse();
+    java.nio.file.Path rules = tmp.resolve("rules");
+    try (var files = java.nio.file.Files.walk(java.nio.file.Path.of("rules"))) {
+      for (java.nio.file.Path f : files.toList()) {
+        java.nio.file.Path to = rules.resolve(java.nio.file.Path.of("rules").relativize(f).toString());
+        if (java.nio.file.Files.isDirectory(f)) {
+          java.nio.file.Files.createDirectories(to);
+        } else {
+          java.nio.file.Files.copy(f, to);
+        }
+      }
+    }
+    java.nio.file.Path thresholds = rules.resolve("policy/thresholds.drl");
+    String text = java.nio.file.Files.readString(thresholds);
+    assertThat(text).contains("new Thresholds(1.5, 2.2, 4.5,");
+    java.nio.file.Files.writeString(thresholds, text.replace("new Thresholds(1.5, 2.2, 4.5,", "new Thresholds(1.5, 2.2, 6.0,"));
+    JsonNode relaxed = json("calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "4.6 m/s",
+        "--rules", rules.toString(), "--json");
+    assertThat(relaxed.get("advised").asBoolean()).as(relaxed.toString()).isTrue();
+  }
+
+  @Test
+  void windAboveFreezingIsNoWindBorneFreeze() throws Exception {
+    JsonNode n = json("calc", "rate", "--temp", "2", "--dew-point", "-6", "--wind", "10 m/s", "--json");
+    assertThat(n.get("advised").asBoolean()).isTrue();
+    assertThat(n.get("reason").asText()).contains("not below freezing");
+    assertThat(n.get("required_rate_mm_h").asDouble()).isGreaterThan(0);
   }
 
   @Test
@@ -140,7 +186,8 @@ class CalcCommandTest {
         .contains("depends on a dew point the night does not reach here").contains("--dew-point");
     Cli.Result shortRate = Cli.run("calc", "rate", "--rate", "0.5 mm/h", "--dew-point", "-10", "--wind", "20 mph");
     assertThat(shortRate.exitCode()).as(shortRate.toString()).isEqualTo(Main.OK);
-    assertThat(shortRate.out()).contains("is short even with the air at 0 °C");
+    assertThat(shortRate.out()).contains("is short even with the air at 0 °C")
+        .contains("Not advised. 0.5 mm/h falls short");
   }
 
   @Test

@@ -69,6 +69,18 @@ class PackagedJarIT {
     assertThat(bad.err()).startsWith("rimeward: ").doesNotContain("Exception");
   }
 
+  /** calc rate from the jar alone: the need at 12 m/s, and the bundled rule files' wind limit. */
+  @Test
+  void calcRateInAStrongWindFromTheJarAlone(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp)
+      throws Exception {
+    Run r = javaIn(tmp, "calc", "rate", "--temp", "-4", "--dew-point", "-7", "--wind", "12 m/s", "--json");
+    assertThat(r.exit()).as(r.err()).isZero();
+    var n = new com.fasterxml.jackson.databind.ObjectMapper().readTree(r.out());
+    assertThat(n.get("required_rate_mm_h").asDouble()).isGreaterThan(10).isLessThan(100);
+    assertThat(n.get("advised").asBoolean()).isFalse();
+    assertThat(n.get("reason").asText()).contains("12.0 m/s at 10 m");
+  }
+
   /** The launcher runs the same jar with start-up options, twice: writing its archive, then using it. */
   @Test
   void theLauncherRunsTheJarAndPassesTheExitCodeOn(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp)
