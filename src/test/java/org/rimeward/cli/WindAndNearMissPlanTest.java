@@ -39,7 +39,7 @@ class WindAndNearMissPlanTest {
           stage: full-bloom
           area: 2.0 ha
           sprinklers:
-            rate: 3.8 mm/h
+            rate: 6.0 mm/h
             source: pond
         - id: pear-b
           crop: pear
@@ -121,7 +121,7 @@ class WindAndNearMissPlanTest {
     Cli.Result text = plan(farm);
     assertThat(text.exitCode()).as(text.toString()).isZero();
     assertThat(text.out()).contains("NOT ADVISED", "wind-borne freeze, wind 6.0 m/s at 10 m (4.5 m/s at 2 m)",
-        "3.8 mm/h", "5.0 mm/h").doesNotContain("no method available", "NaN", "Infinity");
+        "6.0 mm/h", "5.0 mm/h").doesNotContain("no method available", "NaN", "Infinity");
     Cli.Result csv = plan(farm, "--format", "csv");
     assertThat(csv.exitCode()).as(csv.toString()).isZero();
     assertThat(csv.out()).contains("not-advised").doesNotContain("NaN", "Infinity");

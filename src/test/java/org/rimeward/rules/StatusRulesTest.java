@@ -116,7 +116,10 @@ class StatusRulesTest {
     BundledRules.assertFired(r, "b1").doesNotFire("STATUS-NOT-ADVISED");
   }
 
-  /** 3.8 mm/h on 4 ha draws 152 m³/h; a source of {@code maxFlowM3H} serves it or leaves it out. */
+  /**
+   * 3.8 mm/h on 4 ha draws 152 m³/h; the least part the water rules grant is a tenth of the
+   * block at that rate, 15.2 m³/h, so a source of 15 m³/h leaves it out.
+   */
   static BundledRules.Run onSource(double maxFlowM3H) {
     Scenario s = new Scenario().source("pond", maxFlowM3H, 50000);
     s.block("b1").kill(40).sprinklers(3.8, "pond").hourly(Scenario.FROST_AIR, Scenario.FROST_WET).done();
@@ -125,7 +128,7 @@ class StatusRulesTest {
 
   @Test
   void shortOfWaterWhenTheSourceCannotCarryTheBlock() {
-    BundledRules.Run r = onSource(151);
+    BundledRules.Run r = onSource(15);
     BundledRules.assertFired(r, "b1").firesOnce("STATUS-SHORT-OF-WATER");
     assertThat(status(r)).isEqualTo(Status.SHORT_OF_WATER);
   }
