@@ -23,11 +23,14 @@ public sealed interface Action permits Action.Sprinkle, Action.Cover {
    * @param sets the irrigation sets that run, when only some do
    * @param wantedFlowM3H the draw at the design rate over the whole block
    * @param wantedWaterM3 the water at the design rate over the whole block
+   * @param advised false when the rules advise against sprinkling this block tonight (wind, a
+   *     rate short of the need): the run it would be is shown so the manager can weigh it, but
+   *     it is left out of the water budget and granted nothing
    */
   record Sprinkle(Instant start, Instant stop, double requiredRateMmH, double designRateMmH,
       double runRateMmH, double waterM3, double flowM3H, double areaHa, String source,
       boolean startsAtOnce, GrantKind grant, List<String> sets, double wantedFlowM3H,
-      double wantedWaterM3) implements Action {
+      double wantedWaterM3, boolean advised) implements Action {
     public Sprinkle {
       sets = List.copyOf(sets);
     }

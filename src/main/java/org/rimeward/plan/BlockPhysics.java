@@ -9,6 +9,7 @@ import org.rimeward.farm.Sprinklers;
 import org.rimeward.io.BadInputException;
 import org.rimeward.physics.BudTemperature;
 import org.rimeward.physics.KillCurve;
+import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.physics.Psychrometrics;
 import org.rimeward.physics.SprinklerBalance;
 import org.rimeward.physics.Wind;
@@ -28,8 +29,8 @@ final class BlockPhysics {
    */
   static final double NO_ICE_NEEDED_ABOVE_C = 5.0;
 
-  /** The sprinkler balance holds up to this wind at 2 m; extension guidance stops at 4.5 m/s. */
-  static final double SPRINKLING_WIND_LIMIT_MS = 5.0;
+  /** The forecast's wind is brought to this height too, where extension wind limits apply. */
+  static final double REPORTED_WIND_HEIGHT_M = 10.0;
 
   private BlockPhysics() {}
 
@@ -48,7 +49,7 @@ final class BlockPhysics {
   }
 
   /** One site's night, step by step, before it is tied to a block. */
-  private record Steps(long[] t, int[] lines, Map<Measure, double[]> v, double maxWindFreezing) {}
+  private record Steps(long[] t, int[] lines, Map<Measure, double[]> v) {}
 
   static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
       double pressureKPa, String forecastName, Memo memo) {
@@ -60,8 +61,10 @@ final class BlockPhysics {
       memo.bySite.put(site, computed);
     }
     // NightSeries copies what it is given, so the shared arrays stay untouched.
-    return night(block, t10C, t90C, computed.t(), computed.lines(), computed.v(),
-        computed.maxWindFreezing());
+    NightSeries series = new NightSeries(computed.t(), computed.lines(), computed.v());
+    double kill = new KillCurve(t10C, t90C).killPct(
+        series.valueAt(Measure.DRY_BUD_C, series.indexOfMin(Measure.DRY_BUD_C)));
+    return BlockNight.of(block.id(), series, kill);
   }
 
   private static Steps steps(Block block, List<ForecastStep> steps, double pressureKPa,
@@ -73,7 +76,8 @@ final class BlockPhysics {
     for (Measure m : Measure.values()) {
       v.put(m, new double[n]);
     }
-    double maxWindFreezing = 0;
+    // FAO-56 Eq. 47 is linear in the wind, so its ratio between two heights is a constant.
+    double tenMPer2M = 1.0 / Wind.at2mMs(1.0, REPORTED_WIND_HEIGHT_M);
     for (int i = 0; i < n; i++) {
       ForecastStep s = steps.get(i);
       t[i] = s.time().getEpochSecond();
@@ -86,52 +90,40 @@ final class BlockPhysics {
         double wetBulb = Psychrometrics.wetBulbC(air, dew, pressureKPa);
         BudTemperature bud = BudTemperature.estimate(air, dew, wind2m, s.cloudPct(),
             s.solarWm2().orElse(0.0));
-        double rate;
-        if (air > NO_ICE_NEEDED_ABOVE_C) {
-          rate = 0.0;
-        } else if (wind2m > SPRINKLING_WIND_LIMIT_MS) {
-          // Beyond the balance's validity: no rate holds iced buds at 0 °C in such wind.
-          rate = Double.POSITIVE_INFINITY;
-        } else {
-          rate = SprinklerBalance.requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa);
-        }
+        double rate = requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa, s.cloudPct());
         v.get(Measure.AIR_C)[i] = air;
+        v.get(Measure.DEW_POINT_C)[i] = dew;
         v.get(Measure.WET_BULB_C)[i] = wetBulb;
         v.get(Measure.DRY_BUD_C)[i] = air - bud.depressionC();
         v.get(Measure.WET_BUD_C)[i] = wetBulb - bud.depressionC();
         v.get(Measure.WIND_2M_MS)[i] = wind2m;
+        v.get(Measure.WIND_10M_MS)[i] = wind2m * tenMPer2M;
         v.get(Measure.REQUIRED_RATE_MM_H)[i] = rate;
         v.get(Measure.CLOUD_PCT)[i] = s.cloudPct();
         v.get(Measure.SOLAR_WM2)[i] = s.solarWm2().orElse(0.0);
-        if (air <= 0) {
-          maxWindFreezing = Math.max(maxWindFreezing, wind2m);
-        }
       } catch (IllegalArgumentException e) {
         throw new BadInputException(forecastName + ":" + s.line() + ": block " + block.id()
             + ": " + e.getMessage() + "; check this forecast line", e);
       }
     }
-    return new Steps(t, lines, v, maxWindFreezing);
+    return new Steps(t, lines, v);
   }
 
-  private static BlockNight night(Block block, double t10C, double t90C, long[] t, int[] lines,
-      Map<Measure, double[]> v, double maxWindFreezing) {
-    int n = t.length;
-    NightSeries series = new NightSeries(t, lines, v);
-    int cold = series.indexOfMin(Measure.DRY_BUD_C);
-    double minDryBud = series.valueAt(Measure.DRY_BUD_C, cold);
-    double maxDepression = 0;
-    for (int i = 0; i < n; i++) {
-      maxDepression = Math.max(maxDepression,
-          series.valueAt(Measure.AIR_C, i) - series.valueAt(Measure.DRY_BUD_C, i));
+  /**
+   * The sprinkling need at one step; NaN where the weather is outside the range the sprinkler
+   * balance states it is valid for. Whether sprinkling is advised there is the rules' business
+   * (rules/sprinkling/rate.drl); a NaN never leaves the series.
+   */
+  private static double requiredRateMmH(double air, double dew, double wind2m, double waterTempC,
+      double pressureKPa, double cloudPct) {
+    if (air > NO_ICE_NEEDED_ABOVE_C) {
+      return 0.0;
     }
-    double kill = new KillCurve(t10C, t90C).killPct(minDryBud);
-    return new BlockNight(block.id(), series, min(series, Measure.AIR_C), minDryBud,
-        min(series, Measure.WET_BULB_C), min(series, Measure.WET_BUD_C), maxDepression,
-        series.timeAt(cold), series.lineAt(cold), kill, maxWindFreezing);
+    try {
+      return SprinklerBalance.requiredRateMmH(air, dew, wind2m, waterTempC, pressureKPa, cloudPct);
+    } catch (OutOfRangeException e) {
+      return Double.NaN;
+    }
   }
 
-  private static double min(NightSeries s, Measure m) {
-    return s.valueAt(m, s.indexOfMin(m));
-  }
 }

@@ -99,9 +99,9 @@ public final class NightPlanner {
             + date.plusDays(1) + "; Rimeward plans nights that have a sunset and a sunrise"));
     List<ForecastStep> window = window(forecast, forecastName, farm, date, sunset, sunrise);
 
-    NightFact nightFact = new NightFact(date, farm.zone(), sunset, sunrise);
-    PolicyFact policy = policyFact(farm.policy());
     double pressureKPa = Atmosphere.stationPressureKPa(farm.elevationM());
+    NightFact nightFact = new NightFact(date, farm.zone(), sunset, sunrise, pressureKPa);
+    PolicyFact policy = policyFact(farm.policy());
     List<Object> facts = new ArrayList<>();
     facts.add(nightFact);
     facts.add(policy);

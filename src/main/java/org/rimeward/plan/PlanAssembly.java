@@ -7,6 +7,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.function.Function;
 import org.rimeward.BuildInfo;
 import org.rimeward.farm.Block;
@@ -14,16 +15,22 @@ import org.rimeward.farm.Farm;
 import org.rimeward.farm.WaterSource;
 import org.rimeward.rules.FiredRule;
 import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.facts.Alarm;
 import org.rimeward.rules.facts.BlockFact;
 import org.rimeward.rules.facts.BlockNight;
 import org.rimeward.rules.facts.BlockStatus;
 import org.rimeward.rules.facts.CoverPlan;
 import org.rimeward.rules.facts.CoverRemovalDelayed;
+import org.rimeward.rules.facts.Measure;
 import org.rimeward.rules.facts.NightFact;
+import org.rimeward.rules.facts.NightSeries;
 import org.rimeward.rules.facts.Risk;
 import org.rimeward.rules.facts.RiskLevel;
+import org.rimeward.rules.facts.SprinkleNeed;
 import org.rimeward.rules.facts.SprinklePlan;
 import org.rimeward.rules.facts.SprinkleStart;
+import org.rimeward.rules.facts.SprinklingNotAdvised;
+import org.rimeward.rules.facts.StartMargin;
 import org.rimeward.rules.facts.Target;
 import org.rimeward.rules.facts.WaterBalance;
 import org.rimeward.water.Grant;
@@ -49,6 +56,12 @@ final class PlanAssembly {
     Map<String, WaterBalance> balances = byId(outcome.all(WaterBalance.class), WaterBalance::sourceId);
     Map<String, CoverRemovalDelayed> delayed =
         byId(outcome.all(CoverRemovalDelayed.class), CoverRemovalDelayed::blockId);
+    Map<String, SprinkleNeed> needs = byId(outcome.all(SprinkleNeed.class), SprinkleNeed::blockId);
+    Map<String, Alarm> alarms = byId(outcome.all(Alarm.class), Alarm::blockId);
+    Map<String, List<SprinklingNotAdvised>> notAdvised = new HashMap<>();
+    for (SprinklingNotAdvised x : outcome.all(SprinklingNotAdvised.class)) {
+      notAdvised.computeIfAbsent(x.blockId(), k -> new ArrayList<>()).add(x);
+    }
     List<FiredRule> trail = outcome.trail();
     Map<String, List<FiredRule>> trailByBlock = new HashMap<>();
     for (FiredRule f : trail) {
@@ -67,9 +80,25 @@ final class PlanAssembly {
           c.deployStart(), c.deployBy(),
           first(delayed, id).map(CoverRemovalDelayed::remove).orElse(c.remove()),
           c.protectionC(), c.sufficient())));
-      first(sprinkles, id).ifPresent(s -> actions.add(sprinkle(s,
-          first(starts, id).map(SprinkleStart::atOnce).orElse(false),
+      boolean atOnce = first(starts, id).map(SprinkleStart::atOnce).orElse(false);
+      first(sprinkles, id).ifPresent(s -> actions.add(sprinkle(s, atOnce,
           first(balances, s.sourceId()).flatMap(w -> w.allocation().grant(id)))));
+      List<SprinklingNotAdvised> against = notAdvised.getOrDefault(id, List.of());
+      Optional<SprinkleNeed> need = first(needs, id);
+      if (!against.isEmpty() && need.isPresent()) {
+        // The run it would be, shown beside the reason so that the manager can weigh it; it is
+        // granted no water.
+        SprinkleNeed n = need.get();
+        double flow = bf.installedRateMmH() * bf.areaHa() * 10.0;
+        double hours = (n.stop().getEpochSecond() - n.start().getEpochSecond()) / 3600.0;
+        actions.add(new Action.Sprinkle(n.start(), n.stop(), n.requiredRateMmH(),
+            n.installedRateMmH(), 0.0, 0.0, 0.0, bf.areaHa(), bf.sourceId(), atOnce,
+            GrantKind.NONE, List.of(), flow, flow * hours, false));
+      }
+      Optional<Sprinkling> sprinkling = bf.hasSprinklers()
+          ? Optional.of(sprinkling(bf, bn, need, against)) : Optional.empty();
+      Optional<AlarmReading> alarm = first(alarms, id).map(a -> new AlarmReading(a.startAirC(),
+          a.startWetBulbC(), a.alarmAirC(), a.alarmAt(), a.referenceAt()));
       List<FiredRule> rules = List.copyOf(trailByBlock.getOrDefault(id, List.of()));
       blocks.add(new BlockPlan(id, bf.crop(), bf.variety(), bf.stage(), bf.stageName(), bf.t10C(),
           bf.t90C(), bf.thresholdSource(),
@@ -80,7 +109,8 @@ final class PlanAssembly {
           first(statuses, id).map(BlockStatus::status).orElseThrow(
               () -> new IllegalStateException("no status rule fired for block " + id
                   + "; every block needs one STATUS rule")),
-          actions, rules.stream().filter(FiredRule::isCaution).toList(), rules, bn.series()));
+          actions, sprinkling, alarm, rules.stream().filter(FiredRule::isCaution).toList(), rules,
+          bn.series()));
     }
     blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
         .thenComparing(BlockPlan::blockId));
@@ -111,8 +141,10 @@ final class PlanAssembly {
     NightSummary summary = new NightSummary(night.date(), night.zone(), night.sunset(),
         night.sunrise(), window.get(coldest).time(), window.get(coldest).airTempC(),
         forecast.start(), forecast.end());
+    StartMargin margin = outcome.all(StartMargin.class).stream().findFirst().orElseThrow(
+        () -> new IllegalStateException("no START-MARGIN rule fired; the rules must set one"));
     PlanPolicy policy = new PlanPolicy(farm.policy().target().toString(),
-        farm.policy().startMarginC(), farm.policy().stopRule().yamlName());
+        margin.marginC(), farm.policy().stopRule().yamlName());
     return new Plan(farm.name(), BuildInfo.version(), summary, policy, blocks, water, cautions,
         trail, inputs);
   }
@@ -123,10 +155,26 @@ final class PlanAssembly {
     double fullFlow = s.flowM3H();
     return grant.map(g -> new Action.Sprinkle(s.start(), s.stop(), s.requiredRateMmH(),
             s.installedRateMmH(), g.rateMmH(), g.volumeM3(), g.flowM3H(), g.areaHa(), s.sourceId(),
-            atOnce, g.kind(), g.setIds(), fullFlow, fullFlow * hours))
+            atOnce, g.kind(), g.setIds(), fullFlow, fullFlow * hours, true))
         .orElse(new Action.Sprinkle(s.start(), s.stop(), s.requiredRateMmH(), s.installedRateMmH(),
             s.installedRateMmH(), s.waterM3(), fullFlow, s.areaHa(), s.sourceId(), atOnce,
-            GrantKind.FULL, List.of(), fullFlow, s.waterM3()));
+            GrantKind.FULL, List.of(), fullFlow, s.waterM3(), true));
+  }
+
+  /** What the night asks of a sprinkled block: its need over the run and hour by hour. */
+  private static Sprinkling sprinkling(BlockFact bf, BlockNight bn, Optional<SprinkleNeed> need,
+      List<SprinklingNotAdvised> against) {
+    NightSeries s = bn.series();
+    List<Sprinkling.Reason> reasons = against.stream()
+        .sorted(java.util.Comparator.comparing(SprinklingNotAdvised::reason))
+        .map(x -> new Sprinkling.Reason(
+            x.reason().name().toLowerCase(java.util.Locale.ROOT).replace('_', '-'), x.at(),
+            x.wind10mMs(), s.valueAtTime(Measure.WIND_2M_MS, x.at())))
+        .toList();
+    return new Sprinkling(bf.installedRateMmH(),
+        need.filter(n -> n.unknownAt() == null).map(n -> OptionalDouble.of(n.requiredRateMmH()))
+            .orElse(OptionalDouble.empty()),
+        need.map(n -> against.isEmpty()), reasons);
   }
 
   /** Each id's first item in list order, as a scan for the first match would find it. */

@@ -115,7 +115,19 @@ public record PlanDocument(
    * One block's plan.
    *
    * @param risk {@code none}, {@code watch}, {@code damage} or {@code severe}
-   * @param status {@code not-needed}, {@code protected}, {@code short-of-water}, {@code unprotected}
+   * @param status {@code not-needed}, {@code watch}, {@code protected}, {@code partly-protected},
+   *     {@code short-of-water}, {@code not-advised}, {@code unprotected}
+   * @param requiredRateMmH for a block with sprinklers: the largest need over the hours they
+   *     would run; absent when they would not run tonight, or when the water balance cannot give
+   *     the need at one of those hours ({@code notAdvisedBecause} then says {@code need-unknown})
+   * @param installedRateMmH for a block with sprinklers: the installed (design) rate
+   * @param sprinklingAdvised for a block whose sprinklers would run: whether that is advised
+   * @param notAdvisedBecause for a block whose sprinklers would run: {@code wind},
+   *     {@code rate-short}, {@code need-unknown}; empty when advised
+   * @param startAirC the air temperature at which sprinkling starts, at the dew point forecast for
+   *     its hour; with {@code startWetBulbC}, {@code alarmAirC} (a margin above it) and
+   *     {@code alarmAt} (when the forecast air reaches the alarm; absent if it never does), for
+   *     blocks that start sprinkling and near misses with sprinklers
    * @param cautions the explanations of the cautions that fired for the block
    * @param series the night step by step at the block; only for blocks at risk
    */
@@ -137,6 +149,14 @@ public record PlanDocument(
       String risk,
       @JsonSerialize(using = Decimals.One.class) double killPctUnprotected,
       String status,
+      @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double requiredRateMmH,
+      @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double installedRateMmH,
+      @JsonInclude(JsonInclude.Include.NON_NULL) Boolean sprinklingAdvised,
+      @JsonInclude(JsonInclude.Include.NON_NULL) List<String> notAdvisedBecause,
+      @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double startAirC,
+      @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double startWetBulbC,
+      @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double alarmAirC,
+      @JsonInclude(JsonInclude.Include.NON_NULL) OffsetDateTime alarmAt,
       List<Action> actions,
       List<String> cautions,
       List<Rule> rules,
@@ -146,6 +166,7 @@ public record PlanDocument(
       cautions = cautions == null ? List.of() : List.copyOf(cautions);
       rules = rules == null ? List.of() : List.copyOf(rules);
       series = series == null ? List.of() : List.copyOf(series);
+      notAdvisedBecause = notAdvisedBecause == null ? null : List.copyOf(notAdvisedBecause);
     }
 
     public Optional<Sprinkle> sprinkle() {
@@ -197,6 +218,8 @@ public record PlanDocument(
    * @param waterGranted false when a short source leaves it dry: sprinklers off
    * @param grant {@code full}, {@code reduced-rate}, {@code sets}, {@code part-area}, {@code none}
    * @param sets the irrigation sets that run, when only some do
+   * @param advised false when the rules advise against sprinkling tonight (wind, a rate short of
+   *     the need): the run it would be, with its times, for the manager to weigh
    */
   public record Sprinkle(
       OffsetDateTime start,
@@ -213,9 +236,19 @@ public record PlanDocument(
       String source,
       boolean waterGranted,
       String grant,
-      List<String> sets) implements Action {
+      List<String> sets,
+      Boolean advised) implements Action {
     public Sprinkle {
       sets = sets == null ? List.of() : List.copyOf(sets);
+    }
+
+    /**
+     * Whether sprinkling is advised; a run that is not advised is shown with its times so the
+     * manager can weigh it, and is granted no water. Records written before the key read as advised.
+     */
+    @JsonIgnore
+    public boolean isAdvised() {
+      return advised == null || advised;
     }
 
     @Override
@@ -305,7 +338,12 @@ public record PlanDocument(
     }
   }
 
-  /** One forecast step at a block: air, dry and wetted bud, wet bulb, 2 m wind. */
+  /**
+   * One forecast step at a block: air, dry and wetted bud, wet bulb, 2 m wind, the forecast's
+   * wind at 10 m and the sprinkling need.
+   *
+   * @param requiredRateMmH null where the sprinkler water balance cannot give the need
+   */
   public record Step(
       OffsetDateTime at,
       int forecastLine,
@@ -313,5 +351,7 @@ public record PlanDocument(
       @JsonSerialize(using = Decimals.Two.class) double budC,
       @JsonSerialize(using = Decimals.Two.class) double wetBudC,
       @JsonSerialize(using = Decimals.Two.class) double wetBulbC,
-      @JsonSerialize(using = Decimals.Two.class) double windMs) {}
+      @JsonSerialize(using = Decimals.Two.class) double windMs,
+      @JsonSerialize(using = Decimals.Two.class) Double wind10mMs,
+      @JsonSerialize(using = Decimals.Two.class) Double requiredRateMmH) {}
 }

@@ -76,10 +76,12 @@ public final class PlanDocuments {
     List<PlanDocument.Action> actions = new ArrayList<>();
     for (Action a : b.actions()) {
       if (a instanceof Action.Sprinkle s) {
-        // No water, no times: a crew must not read a start and stop as "sprinkle".
+        // No water, no times: a crew must not read a start and stop as "sprinkle". A run that is
+        // not advised keeps its times beside advised: false, for the manager to weigh.
+        boolean times = s.withWater() || !s.advised();
         actions.add(new PlanDocument.Sprinkle(
-            s.withWater() ? time(s.start(), zone) : null,
-            s.withWater() ? time(s.stop(), zone) : null,
+            times ? time(s.start(), zone) : null,
+            times ? time(s.stop(), zone) : null,
             s.startsAtOnce(),
             s.requiredRateMmH(),
             s.designRateMmH(),
@@ -92,7 +94,8 @@ public final class PlanDocuments {
             s.source(),
             s.withWater(),
             word(s.grant()),
-            s.sets()));
+            s.sets(),
+            s.advised()));
       } else if (a instanceof Action.Cover c) {
         actions.add(new PlanDocument.Cover(time(c.deployStart(), zone), time(c.deployBy(), zone),
             time(c.remove(), zone), c.protectionC(), c.sufficient()));
@@ -116,6 +119,17 @@ public final class PlanDocuments {
         word(b.risk()),
         b.killPctUnprotected(),
         word(b.status()),
+        b.sprinkling().flatMap(sp -> sp.requiredRateMmH().isPresent()
+            ? java.util.Optional.of(sp.requiredRateMmH().getAsDouble()) : java.util.Optional.<Double>empty())
+            .orElse(null),
+        b.sprinkling().map(Sprinkling::installedRateMmH).orElse(null),
+        b.sprinkling().flatMap(Sprinkling::advised).orElse(null),
+        b.sprinkling().filter(sp -> sp.advised().isPresent())
+            .map(sp -> sp.notAdvised().stream().map(Sprinkling.Reason::word).toList()).orElse(null),
+        b.alarm().map(AlarmReading::startAirC).orElse(null),
+        b.alarm().map(AlarmReading::startWetBulbC).orElse(null),
+        b.alarm().map(AlarmReading::alarmAirC).orElse(null),
+        b.alarm().map(a -> time(a.alarmAt(), zone)).orElse(null),
         actions,
         b.cautions().stream().map(FiredRule::explanation).toList(),
         b.rules().stream().map(r -> rule(r, zone)).toList(),
@@ -128,7 +142,10 @@ public final class PlanDocuments {
       out.add(new PlanDocument.Step(time(s.timeAt(i), zone), s.lineAt(i),
           s.valueAt(Measure.AIR_C, i), s.valueAt(Measure.DRY_BUD_C, i),
           s.valueAt(Measure.WET_BUD_C, i), s.valueAt(Measure.WET_BULB_C, i),
-          s.valueAt(Measure.WIND_2M_MS, i)));
+          s.valueAt(Measure.WIND_2M_MS, i), s.valueAt(Measure.WIND_10M_MS, i),
+          // The need is unknown (NaN) only where the balance cannot give it; written as null.
+          Double.isNaN(s.valueAt(Measure.REQUIRED_RATE_MM_H, i)) ? null
+              : s.valueAt(Measure.REQUIRED_RATE_MM_H, i)));
     }
     return out;
   }

@@ -54,36 +54,58 @@ public final class PlanText {
         + " local codes, water rights and licensed practice.\n\n");
 
     List<String[]> rows = new ArrayList<>();
-    rows.add(new String[] {"block", "crop / stage", "risk", "coldest bud", "plan", "start", "stop", "water"});
+    rows.add(new String[] {"block", "crop / stage", "risk", "coldest bud", "plan", "start", "stop",
+        "need / installed", "water"});
     for (PlanDocument.Block b : plan.blocks()) {
       String crop = b.crop() + (b.variety() != null ? " " + b.variety() : "") + " / " + b.stageName();
       String risk = b.risk() + (b.killPctUnprotected() >= 1
           ? String.format(Locale.ROOT, " (%.0f%% kill)", b.killPctUnprotected()) : "");
       String bud = fmt.temp(b.minBudC());
+      List<String[]> blockRows = new ArrayList<>();
       if (b.actions().isEmpty()) {
-        rows.add(new String[] {b.block(), crop, risk, bud, statusWord(b), "", "", ""});
+        blockRows.add(row(statusWord(b), "", "", "", ""));
       }
-      boolean first = true;
       for (PlanDocument.Action a : b.actions()) {
-        String[] row = first ? new String[] {b.block(), crop, risk, bud, "", "", "", ""}
-            : new String[] {"", "", "", "", "", "", "", ""};
-        first = false;
         if (a instanceof PlanDocument.Cover c) {
-          row[4] = c.sufficient() ? "covers on" : "covers on (not enough alone)";
-          row[5] = NightUpdateView.when(c.deployStart(), plan.now(), fmt);
-          row[6] = NightUpdateView.when(c.remove(), plan.now(), fmt);
+          String what = b.status().equals("watch") ? "covers on (near miss)"
+              : c.sufficient() ? "covers on" : "covers on (not enough alone)";
+          blockRows.add(row(what, NightUpdateView.when(c.deployStart(), plan.now(), fmt),
+              NightUpdateView.when(c.remove(), plan.now(), fmt), "", ""));
         } else if (a instanceof PlanDocument.Sprinkle s) {
-          sprinkleRow(row, s, fmt, plan.now());
+          String[] r = row("", "", "", need(b, s, fmt), "");
+          if (s.isAdvised()) {
+            sprinkleRow(r, s, fmt, plan.now());
+          } else {
+            r[4] = "NOT ADVISED: sprinkle " + fmt.rate(s.designRateMmH()) + " from " + s.source()
+                + notAdvised(b, fmt);
+            r[5] = NightUpdateView.when(s.start(), plan.now(), fmt);
+            r[6] = NightUpdateView.when(s.stop(), plan.now(), fmt);
+          }
+          blockRows.add(r);
         }
-        rows.add(row);
+      }
+      if (b.alarmAirC() != null) {
+        blockRows.add(row("alarm at " + fmt.temp(b.alarmAirC()) + " air; start at "
+            + fmt.temp(b.startAirC()) + " air (wet bulb " + fmt.temp(b.startWetBulbC()) + ")",
+            b.alarmAt() == null ? "" : NightUpdateView.when(b.alarmAt(), plan.now(), fmt), "", "", ""));
       }
       if (b.status().equals("short-of-water") || b.status().equals("partly-protected")
+          || b.status().equals("not-advised")
           || b.status().equals("unprotected") && !b.actions().isEmpty()) {
-        rows.add(new String[] {"", "", "", "", "-> " + statusWord(b)
-            + (b.sprinkle().filter(s -> !s.waterGranted()).isPresent()
+        blockRows.add(row("-> " + statusWord(b)
+            + (b.sprinkle().filter(s -> s.isAdvised() && !s.waterGranted()).isPresent()
                 ? String.format(Locale.ROOT, ": sprinklers off, expect %.0f%% kill",
-                    b.killPctUnprotected()) : ""),
-            "", "", ""});
+                    b.killPctUnprotected()) : ""), "", "", "", ""));
+      }
+      for (int i = 0; i < blockRows.size(); i++) {
+        String[] r = blockRows.get(i);
+        if (i == 0) {
+          r[0] = b.block();
+          r[1] = crop;
+          r[2] = risk;
+          r[3] = bud;
+        }
+        rows.add(r);
       }
     }
     table(sb, rows);
@@ -153,8 +175,40 @@ public final class PlanText {
     if (s.waterGranted()) {
       row[5] = NightUpdateView.when(s.start(), now, fmt);
       row[6] = NightUpdateView.when(s.stop(), now, fmt);
-      row[7] = fmt.volume(s.waterM3());
+      row[8] = fmt.volume(s.waterM3());
     }
+  }
+
+  private static String[] row(String plan, String start, String stop, String need, String water) {
+    return new String[] {"", "", "", "", plan, start, stop, need, water};
+  }
+
+  /** The need over the run against the installed rate; "unknown" where the balance gives none. */
+  private static String need(PlanDocument.Block b, PlanDocument.Sprinkle s, UnitFormat fmt) {
+    return (b.requiredRateMmH() == null ? "unknown" : fmt.rate(b.requiredRateMmH())) + " / "
+        + fmt.rate(s.designRateMmH());
+  }
+
+  /** Why sprinkling is not advised, said in the table row with its numbers. */
+  private static String notAdvised(PlanDocument.Block b, UnitFormat fmt) {
+    List<String> parts = new ArrayList<>();
+    List<String> why = b.notAdvisedBecause() == null ? List.of() : b.notAdvisedBecause();
+    if (why.contains("wind")) {
+      // The wind the deciding rule saw, from its recorded values.
+      String wind = b.rules().stream().filter(r -> r.id().equals("SPRINKLE-UNSAFE-WIND")
+              && r.values() != null && r.values().hasNonNull("w.maxWind10mMs"))
+          .findFirst().map(r -> ", wind " + fmt.speed(r.values().get("w.maxWind10mMs").asDouble())
+              + " at 10 m (" + fmt.speed(r.values().get("w.wind2mMs").asDouble())
+              + " at 2 m) below freezing").orElse("");
+      parts.add("wind-borne freeze" + wind);
+    }
+    if (why.contains("rate-short")) {
+      parts.add("rate short of the need, not advised alone");
+    }
+    if (why.contains("need-unknown")) {
+      parts.add("need beyond the water balance's range");
+    }
+    return parts.isEmpty() ? "" : ": " + String.join("; ", parts);
   }
 
   private static String shortWords(PlanDocument.Water w) {
@@ -172,7 +226,12 @@ public final class PlanText {
   public static String statusWord(PlanDocument.Block b) {
     return switch (b.status()) {
       case "not-needed" -> "nothing needed";
-      case "unprotected" -> "UNPROTECTED: no method available";
+      case "watch" -> "watch: near miss";
+      case "not-advised" -> String.format(Locale.ROOT,
+          "NOT ADVISED: expected kill unprotected %.0f%%, against the risk of sprinkling short;"
+              + " the manager decides", b.killPctUnprotected());
+      case "unprotected" -> b.cover().isPresent() ? "UNPROTECTED: covers not enough alone"
+          : "UNPROTECTED: no method available";
       case "short-of-water" -> "SHORT OF WATER";
       case "partly-protected" -> "PROTECTED IN PART, the rest unprotected";
       default -> b.status();

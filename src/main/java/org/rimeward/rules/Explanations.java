@@ -159,7 +159,7 @@ public final class Explanations {
     }
     String lower = name.toLowerCase(Locale.ROOT);
     if (lower.endsWith("deltac") || lower.endsWith("marginc") || lower.endsWith("protectionc")
-        || lower.endsWith("depressionc") || lower.endsWith("offsetc")) {
+        || lower.endsWith("depressionc") || lower.endsWith("offsetc") || lower.endsWith("bandc")) {
       return Dimension.TEMPERATURE_DELTA;
     }
     if (name.endsWith("C")) {

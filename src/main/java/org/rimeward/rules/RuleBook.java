@@ -36,8 +36,14 @@ import org.rimeward.io.TextFile;
  * the run with the file, line and compiler message.
  */
 public final class RuleBook {
-  /** The agenda groups, in the order they run: derived facts first, cautions last. */
-  public static final List<String> PHASES = List.of("infer", "decide", "water", "status", "cautions");
+  /**
+   * The ruleflow groups, in the order they run: derived facts first, cautions last. Each phase
+   * reads only what earlier phases concluded, so no rule needs a salience: thresholds, targets
+   * and risk; covers; sprinkling thresholds; start; stop; the run's need and wind; whether
+   * sprinkling is advised; the plan and alarms; water; status; cautions.
+   */
+  public static final List<String> PHASES = List.of("infer", "covers", "thresholds", "start",
+      "stop", "run", "advice", "sprinkle", "water", "status", "cautions");
 
   private final Path folder;
   private final List<RuleFile> files;

@@ -372,7 +372,8 @@ public final class PlanBenchmark {
         double air = (sinceDawn <= 9 ? -4 + 2.0 * sinceDawn : 14 - 1.2 * (sinceDawn - 9))
             + rnd.nextGaussian() * 0.3;
         double dew = Math.min(air - 1.5, -6.0 + rnd.nextGaussian() * 0.3);
-        boolean night = hour >= 20 || hour < 7;
+        // The morning breeze rises at 09:00, once the air is back above freezing.
+        boolean night = hour >= 20 || hour < 9;
         double wind = night ? 0.8 + rnd.nextDouble() * 1.2 : 3 + rnd.nextDouble() * 3;
         int cloud = night ? rnd.nextInt(10) : 20 + rnd.nextInt(40);
         int solar = hour >= 7 && hour < 19 ? (int) (700 * Math.sin(Math.PI * (hour - 7) / 12.0)) : 0;

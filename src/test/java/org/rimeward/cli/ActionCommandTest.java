@@ -20,7 +20,7 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * 'rimeward action' on a copy of the demo farm: what the crew did is recorded in the chain,
  * contradictions of the plan are warned about but recorded, and the audit commands show it beside
- * the advice. The demo plan sprinkles field-berries 00:46 → 08:32 and keeps its covers on to 08:32.
+ * the advice. The demo plan sprinkles field-berries 02:22 → 08:32 and keeps its covers on to 08:32.
  */
 class ActionCommandTest {
   private static final ObjectMapper JSON = new ObjectMapper();
@@ -52,12 +52,12 @@ class ActionCommandTest {
 
   @Test
   void recordsAndWarnsWhenTheActionContradictsThePlanButNeverRefuses() {
-    Cli.Result late = action("field-berries", "sprinkling-on", "--at", "2026-04-15T00:50",
+    Cli.Result late = action("field-berries", "sprinkling-on", "--at", "2026-04-15T02:30",
         "--by", "ana", "--note", "pump 2 slow to prime");
     assertThat(late.exitCode()).as(late.toString()).isZero();
-    assertThat(late.out()).contains("recorded: field-berries sprinkling-on at 00:50 (night of"
+    assertThat(late.out()).contains("recorded: field-berries sprinkling-on at 02:30 (night of"
         + " 2026-04-14) by ana; plan run ");
-    assertThat(late.err()).contains("warning: sprinklers on at 00:50, after the start the plan gives (00:46)");
+    assertThat(late.err()).contains("warning: sprinklers on at 02:30, after the start the plan gives (02:22)");
 
     Cli.Result early = action("field-berries", "sprinkling-off", "--at", "05:10", "--by", "ana");
     assertThat(early.exitCode()).isZero();
@@ -79,20 +79,20 @@ class ActionCommandTest {
 
   @Test
   void auditWhyShowAndExportPutWhatWasDoneBesideWhatWasAdvised() throws Exception {
-    action("field-berries", "sprinkling-on", "--at", "00:44", "--by", "ana", "--note", "pump 2");
+    action("field-berries", "sprinkling-on", "--at", "02:20", "--by", "ana", "--note", "pump 2");
     action("field-berries", "sprinkling-off", "--at", "08:40", "--by", "ana");
 
     Cli.Result why = Cli.run("audit", "why", "field-berries", "--farm", farm.toString());
     assertThat(why.exitCode()).as(why.toString()).isZero();
     assertThat(why.out()).contains("Advised and done (night of 2026-04-14)")
-        .contains("advised: sprinkle 00:46 → 08:32")
-        .contains("done:    00:44 sprinkling-on by ana (pump 2)")
+        .contains("advised: sprinkle 02:22 → 08:32")
+        .contains("done:    02:20 sprinkling-on by ana (pump 2)")
         .contains("done:    08:40 sprinkling-off by ana");
 
     JsonNode whyJson = JSON.readTree(Cli.run("audit", "why", "field-berries", "--json", "--farm",
         farm.toString()).out());
     assertThat(whyJson.get("done")).hasSize(2);
-    assertThat(whyJson.get("done").get(0).get("at").asText()).isEqualTo("2026-04-15T00:44-07:00");
+    assertThat(whyJson.get("done").get(0).get("at").asText()).isEqualTo("2026-04-15T02:20-07:00");
 
     String runId = JSON.readTree(Cli.run("audit", "why", "field-berries", "--json", "--farm",
         farm.toString()).out()).get("run").asText();
@@ -100,15 +100,15 @@ class ActionCommandTest {
         farm.toString()).out());
     assertThat(show.get("crew_actions")).hasSize(2);
     assertThat(Cli.run("audit", "show", runId, "--farm", farm.toString()).out())
-        .contains("done:    00:44 sprinkling-on by ana");
+        .contains("done:    02:20 sprinkling-on by ana");
 
     String csv = Cli.run("audit", "export", runId, "--format", "csv", "--farm", farm.toString()).out();
     List<CSVRecord> rows = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get()
         .parse(new StringReader(csv)).getRecords();
     CSVRecord sprinkle = rows.stream().filter(r -> r.get("block").equals("field-berries")
         && r.get("method").equals("sprinkle")).findFirst().orElseThrow();
-    assertThat(sprinkle.get("start")).isEqualTo("2026-04-15T00:46-07:00");
-    assertThat(sprinkle.get("done_start")).isEqualTo("2026-04-15T00:44-07:00");
+    assertThat(sprinkle.get("start")).isEqualTo("2026-04-15T02:22-07:00");
+    assertThat(sprinkle.get("done_start")).isEqualTo("2026-04-15T02:20-07:00");
     assertThat(sprinkle.get("done_stop")).isEqualTo("2026-04-15T08:40-07:00");
     CSVRecord cover = rows.stream().filter(r -> r.get("block").equals("field-berries")
         && r.get("method").equals("cover")).findFirst().orElseThrow();

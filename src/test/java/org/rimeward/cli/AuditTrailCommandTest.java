@@ -243,7 +243,7 @@ class AuditTrailCommandTest {
     assertThat(withRules.out()).contains("rules: today's")
         .contains("rule sprinkling/start.drl: changed")
         .contains("Blocks whose decision differs")
-        .containsPattern("/blocks/hollow-cherry/actions/0/start: \"2026-04-14T21:11-07:00\" → \"")
+        .containsPattern("/blocks/hollow-cherry/actions/0/start: \"2026-04-14T22:42-07:00\" → \"")
         .doesNotContain("no difference");
 
     Cli.Result rulesAlone = Cli.run("audit", "replay", run.runId(), "--farm", farm.toString(),
@@ -359,7 +359,7 @@ class AuditTrailCommandTest {
       assertThat(runs.get(0).runId()).isNotEqualTo(runs.get(1).runId());
       assertThat(store.verify().intact()).isTrue();
       for (RunSummary s : runs) {
-        assertThat(store.loadRun(s.runId()).orElseThrow().blocks()).hasSize(9);
+        assertThat(store.loadRun(s.runId()).orElseThrow().blocks()).hasSize(10);
       }
     }
   }

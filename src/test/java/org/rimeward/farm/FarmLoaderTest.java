@@ -262,8 +262,8 @@ class FarmLoaderTest {
     Farm f = FarmLoader.load(write("small", yaml).resolve("farm.yaml"));
     assertThat(f.policy()).isEqualTo(Policy.DEFAULT);
     assertThat(f.policy().target().isT10()).isTrue();
-    // FAO 2005 (Snyder & de Melo-Abreu) Ch. 7: alarm about 1 °C above the start temperature.
-    assertThat(f.policy().startMarginC()).isEqualTo(1.0);
+    // No start margin of the farm's own: the rules' default applies (rules/policy/thresholds.drl).
+    assertThat(f.policy().startMarginC()).isNaN();
     // UF/IFAS Circular 348: stop when the wet bulb is 32 °F or higher.
     assertThat(f.policy().stopRule()).isEqualTo(StopRule.WET_BULB_ABOVE_FREEZING);
     assertThat(f.forecastFile().getFileName().toString()).isEqualTo("forecast.csv");

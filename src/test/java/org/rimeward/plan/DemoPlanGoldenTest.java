@@ -51,6 +51,9 @@ class DemoPlanGoldenTest {
     assertThat(plan.blocks()).anyMatch(b -> b.status() == Status.NOT_NEEDED);
     assertThat(plan.blocks()).anyMatch(b -> b.status() == Status.SHORT_OF_WATER);
     assertThat(plan.blocks()).anyMatch(b -> b.status() == Status.UNPROTECTED);
+    assertThat(plan.blocks()).anyMatch(b -> b.status() == Status.NOT_ADVISED);
+    assertThat(plan.blocks()).anyMatch(b -> b.status() == Status.WATCH);
+    assertThat(plan.blocks()).anyMatch(b -> b.alarm().isPresent());
     assertThat(plan.trail()).anyMatch(r -> r.ruleId().startsWith("WIND-"));
   }
 

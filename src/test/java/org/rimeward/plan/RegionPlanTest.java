@@ -98,7 +98,7 @@ class RegionPlanTest {
     }
     Set<String> withoutByBlocks = new TreeSet<>();
     for (BlockPlan b : plan.blocks()) {
-      b.actions().stream().filter(a -> a instanceof Action.Sprinkle s && !s.withWater())
+      b.actions().stream().filter(a -> a instanceof Action.Sprinkle s && s.advised() && !s.withWater())
           .forEach(a -> withoutByBlocks.add(b.blockId()));
     }
     Set<String> withoutBySources = new TreeSet<>();

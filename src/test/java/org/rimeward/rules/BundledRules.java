@@ -34,6 +34,58 @@ final class BundledRules {
     return new Run(o);
   }
 
+  /**
+   * Which rules the rule tests have shown firing, and which they have shown not firing in a
+   * scenario of their own (a near miss), as the assertions ran and held. RuleCatalogTest runs the
+   * rule tests and reads it.
+   */
+  static final class Coverage {
+    static final java.util.Set<String> FIRED = java.util.concurrent.ConcurrentHashMap.newKeySet();
+    static final java.util.Set<String> NEAR_MISS = java.util.concurrent.ConcurrentHashMap.newKeySet();
+
+    private Coverage() {}
+  }
+
+  /** Assertions on the rules that fired in a run (for one block, or in all), recorded as held. */
+  static final class FiredAssert {
+    private final List<String> fired;
+    private final String what;
+
+    FiredAssert(List<String> fired, String what) {
+      this.fired = fired;
+      this.what = what;
+    }
+
+    /** Each rule fired (at least once). */
+    FiredAssert fires(String... ids) {
+      assertThat(fired).as(what).contains(ids);
+      Coverage.FIRED.addAll(List.of(ids));
+      return this;
+    }
+
+    /** Each rule fired exactly once. */
+    FiredAssert firesOnce(String... ids) {
+      assertThat(fired).as(what).containsOnlyOnce(ids);
+      Coverage.FIRED.addAll(List.of(ids));
+      return this;
+    }
+
+    /** None of the rules fired: for each, this scenario is a near miss its test chose. */
+    FiredAssert doesNotFire(String... ids) {
+      assertThat(fired).as(what).doesNotContain(ids);
+      Coverage.NEAR_MISS.addAll(List.of(ids));
+      return this;
+    }
+  }
+
+  static FiredAssert assertFired(Run r, String blockId) {
+    return new FiredAssert(r.firedFor(blockId), "rules fired for " + blockId + " in " + r.fired());
+  }
+
+  static FiredAssert assertFired(Run r) {
+    return new FiredAssert(r.fired(), "rules fired");
+  }
+
   /** What one run concluded, with the questions the rule tests ask of it. */
   record Run(RuleBook.Outcome outcome) {
     /** The ids of the rules that fired for a block, in firing order. */
@@ -52,6 +104,7 @@ final class BundledRules {
       List<FiredRule> hits = outcome.trail().stream()
           .filter(f -> f.ruleId().equals(ruleId) && blockId.equals(f.blockId())).toList();
       assertThat(hits).as("%s firings for %s in %s", ruleId, blockId, fired()).hasSize(1);
+      Coverage.FIRED.add(ruleId);
       return hits.get(0);
     }
 
@@ -59,11 +112,14 @@ final class BundledRules {
     FiredRule firing(String ruleId) {
       List<FiredRule> hits = outcome.trail().stream().filter(f -> f.ruleId().equals(ruleId)).toList();
       assertThat(hits).as("%s firings in %s", ruleId, fired()).hasSize(1);
+      Coverage.FIRED.add(ruleId);
       return hits.get(0);
     }
 
     String explanation(String ruleId, String blockId) {
-      return firing(ruleId, blockId).explanation();
+      FiredRule f = firing(ruleId, blockId);
+      Coverage.FIRED.add(ruleId);
+      return f.explanation();
     }
 
     <T> List<T> all(Class<T> type) {

@@ -33,28 +33,28 @@ class CautionRulesTest {
     return Scenario.with(Scenario.fill(16, 1.0), 9, ms);
   }
 
-  // Watch band 2 °C above the target: common practice (rules/risk/risk.drl).
+  // Watch band 1.5 °C above the target (rules/policy/thresholds.drl).
   @Test
-  void watchWhenWithinTwoDegreesAndNothingIsPlanned() {
+  void watchWhenWithinTheBand() {
     BundledRules.Run r = coldest(new Scenario(), -1.0, b -> b);
     FiredRule f = r.firing("CAUTION-WATCH", "b1");
     assertThat(f.isCaution()).isTrue();
-    assertThat(f.explanation()).contains("b1", "-1.0 °C", "-2.2 °C");
+    assertThat(f.explanation()).contains("b1", "-1.0 °C", "-2.2 °C", "1.5 °C", "miss by that much");
   }
 
   @Test
   void noWatchOutsideTheBand() {
-    BundledRules.Run r = coldest(new Scenario(), -0.15, b -> b);
-    assertThat(r.fired()).doesNotContain("CAUTION-WATCH");
+    BundledRules.Run r = coldest(new Scenario(), -0.65, b -> b);
+    BundledRules.assertFired(r).doesNotFire("CAUTION-WATCH");
   }
 
   @Test
-  void noWatchSayingNothingIsPlannedWhenProtectionIsPlanned() {
+  void noWatchWhenProtectionIsNeeded() {
     // Fixed target -1.0 °C, warmer than T10 -2.2 °C: a coldest bud of -1.5 °C is in the watch
     // band of the kill tables but needs protection by the farm's target, and covers protect it.
-    BundledRules.Run r = coldest(new Scenario().policy(fixed(-1.0)), -1.5, b -> b.covers(2.0, 2));
+    BundledRules.Run r = coldest(new Scenario().policy(fixed(-1.0)), -1.5, b -> b.covers(2.6, 2));
     assertThat(r.one(BlockStatus.class, "b1").status()).isEqualTo(Status.PROTECTED);
-    assertThat(r.fired()).doesNotContain("CAUTION-WATCH");
+    BundledRules.assertFired(r).doesNotFire("CAUTION-WATCH");
   }
 
   @Test
@@ -72,48 +72,67 @@ class CautionRulesTest {
     double[] wet = Scenario.with(Scenario.with(Scenario.FROST_WET, 0, -0.15), 1, -1.15);
     Scenario s = new Scenario().source("pond", 500, 5000);
     s.block("b1").sprinklers(3.8, "pond").hourly(Scenario.FROST_AIR, wet).done();
-    assertThat(BundledRules.run(s).fired()).doesNotContain("CAUTION-START-AT-ONCE");
+    BundledRules.assertFired(BundledRules.run(s)).doesNotFire("CAUTION-START-AT-ONCE");
   }
 
   @Test
   void rateShortNamesBothRates() {
     double[] rate = Scenario.with(Scenario.fill(16, 2.0), 9, 4.5);
     BundledRules.Run r = frost(b -> b.sprinklers(3.8, "pond").rate(rate));
-    assertThat(r.explanation("CAUTION-RATE-SHORT", "b1")).contains("3.80 mm/h", "4.50 mm/h", "milky");
+    assertThat(r.explanation("CAUTION-RATE-SHORT", "b1")).contains("3.80 mm/h", "4.50 mm/h", "milky",
+        "not advised", "40 %");
   }
 
   @Test
   void noRateShortCautionAtEquality() {
     double[] rate = Scenario.with(Scenario.fill(16, 2.0), 9, 3.8);
-    assertThat(frost(b -> b.sprinklers(3.8, "pond").rate(rate)).fired()).doesNotContain("CAUTION-RATE-SHORT");
+    BundledRules.assertFired(frost(b -> b.sprinklers(3.8, "pond").rate(rate))).doesNotFire("CAUTION-RATE-SHORT");
+  }
+
+  @Test
+  void windNotAdvisedSaysSoAmongTheCautions() {
+    BundledRules.Run r = frost(b -> b.sprinklers(3.8, "pond").wind(windAt0300(4.51)));
+    assertThat(r.explanation("CAUTION-WIND-NOT-ADVISED", "b1")).contains("b1", "4.5 m/s", "03:00",
+        "2.00 mm/h", "3.80 mm/h", "40 %");
+  }
+
+  @Test
+  void noWindNotAdvisedCautionAt10Mph() {
+    BundledRules.assertFired(frost(b -> b.sprinklers(3.8, "pond").wind(windAt0300(4.5))))
+        .doesNotFire("CAUTION-WIND-NOT-ADVISED");
   }
 
   @Test
   void breezyOnASprinkledBlock() {
     BundledRules.Run r = frost(b -> b.sprinklers(3.8, "pond").wind(windAt0300(3.0)));
-    assertThat(r.explanation("CAUTION-BREEZY", "b1")).contains("b1", "3.0 m/s");
+    assertThat(r.explanation("CAUTION-BREEZY", "b1")).contains("b1", "3.0 m/s", "2.2 m/s", "03:00");
   }
 
   @Test
   void noBreezyCautionAt5Mph() {
     // 2.2 m/s is not above the 5 mph band edge (NC State Extension, Poling 2014).
-    assertThat(frost(b -> b.sprinklers(3.8, "pond").wind(windAt0300(2.2))).fired())
-        .doesNotContain("CAUTION-BREEZY");
+    BundledRules.assertFired(frost(b -> b.sprinklers(3.8, "pond").wind(windAt0300(2.2))))
+        .doesNotFire("CAUTION-BREEZY");
+  }
+
+  /** The frost night's coldest hour is 05:00 (step 11). */
+  static double[] windAt0500(double ms) {
+    return Scenario.with(Scenario.fill(16, 1.0), 11, ms);
   }
 
   @Test
   void windyOnACoveredBlock() {
-    // Covers 2.0 °C on a coldest bud of -5.0 °C; wind 4.51 m/s at 03:00 (air -3 °C).
-    BundledRules.Run r = frost(b -> b.covers(2.0, 2).wind(windAt0300(4.51)));
-    assertThat(r.explanation("CAUTION-WINDY-COVERS", "b1")).contains("b1", "4.5 m/s", "anchored");
+    // Covers 2.0 °C on a coldest bud of -5.0 °C; wind 4.51 m/s at 10 m at 05:00, the coldest hour.
+    BundledRules.Run r = frost(b -> b.covers(2.0, 2).wind(windAt0500(4.51)));
+    assertThat(r.explanation("CAUTION-WINDY-COVERS", "b1")).contains("b1", "4.5 m/s", "05:00", "anchored");
   }
 
   @Test
   void noWindyCoversCautionAt10Mph() {
-    assertThat(frost(b -> b.covers(2.0, 2).wind(windAt0300(4.5))).fired()).doesNotContain("CAUTION-WINDY-COVERS");
+    BundledRules.assertFired(frost(b -> b.covers(2.0, 2).wind(windAt0500(4.5)))).doesNotFire("CAUTION-WINDY-COVERS");
   }
 
-  /** A covered block (2 °C of cover, enough on a -4 °C night) with the given cloud per hour. */
+  /** A covered block (2 °C of cover) on a -4 °C night with the given cloud per hour. */
   static BundledRules.Run coveredUnder(double[] cloud) {
     return coldest(new Scenario(), -4.0, b -> b.covers(2.0, 2).cloud(cloud));
   }
@@ -127,15 +146,15 @@ class CautionRulesTest {
 
   @Test
   void noSunCautionAtThirtyPercent() {
-    assertThat(coveredUnder(Scenario.with(Scenario.fill(16, 100), 14, 30)).fired())
-        .doesNotContain("CAUTION-COVER-SUN");
+    BundledRules.assertFired(coveredUnder(Scenario.with(Scenario.fill(16, 100), 14, 30)))
+        .doesNotFire("CAUTION-COVER-SUN");
   }
 
   @Test
   void aClearSkyBeforeSunriseIsNotTheMorningSun() {
     // 0 % at 05:00, before sunrise; 100 % from 06:00 on.
-    assertThat(coveredUnder(Scenario.with(Scenario.fill(16, 100), 11, 0)).fired())
-        .doesNotContain("CAUTION-COVER-SUN");
+    BundledRules.assertFired(coveredUnder(Scenario.with(Scenario.fill(16, 100), 11, 0)))
+        .doesNotFire("CAUTION-COVER-SUN");
   }
 
   @Test
@@ -146,8 +165,8 @@ class CautionRulesTest {
 
   @Test
   void noPollinatorCautionBeforeBloom() {
-    BundledRules.Run r = coldest(new Scenario(), -4.0, b -> b.covers(2.0, 2).stage("tight-cluster", false));
-    assertThat(r.fired()).contains("COVER-SUFFICIENT").doesNotContain("CAUTION-COVER-POLLINATORS");
+    BundledRules.Run r = coldest(new Scenario(), -3.5, b -> b.covers(2.0, 2).stage("tight-cluster", false));
+    BundledRules.assertFired(r).fires("COVER-SUFFICIENT").doesNotFire("CAUTION-COVER-POLLINATORS");
   }
 
   @Test
@@ -160,21 +179,21 @@ class CautionRulesTest {
   void coversThatAreNotEnoughSaySoInsteadOfNothingProtects() {
     // -5.0 °C coldest bud + 2.0 °C of cover = -3.0 °C, below the -2.2 °C target; no sprinklers.
     BundledRules.Run r = frost(b -> b.covers(2.0, 2));
-    assertThat(r.fired()).contains("COVER-INSUFFICIENT", "CAUTION-COVERS-NOT-ENOUGH")
-        .doesNotContain("CAUTION-UNPROTECTED");
+    BundledRules.assertFired(r).fires("COVER-INSUFFICIENT", "CAUTION-COVERS-NOT-ENOUGH")
+        .doesNotFire("CAUTION-UNPROTECTED");
     assertThat(r.explanation("CAUTION-COVERS-NOT-ENOUGH", "b1")).contains("-3.0 °C", "-2.2 °C", "40 %");
   }
 
   @Test
   void noCoversNotEnoughCautionWhenCoversSuffice() {
-    // -4.0 + 2.0 = -2.0 °C under the covers: above the target, so the block is protected.
-    BundledRules.Run r = coldest(new Scenario(), -4.0, b -> b.covers(2.0, 2));
-    assertThat(r.fired()).contains("COVER-SUFFICIENT").doesNotContain("CAUTION-COVERS-NOT-ENOUGH");
+    // -3.5 + 2.0 = -1.5 °C under the covers: above the target with the margin, so protected.
+    BundledRules.Run r = coldest(new Scenario(), -3.5, b -> b.covers(2.0, 2));
+    BundledRules.assertFired(r).fires("COVER-SUFFICIENT").doesNotFire("CAUTION-COVERS-NOT-ENOUGH");
   }
 
   @Test
   void noUnprotectedCautionJustAboveTheTarget() {
-    assertThat(coldest(new Scenario(), -2.15, b -> b).fired()).doesNotContain("CAUTION-UNPROTECTED");
+    BundledRules.assertFired(coldest(new Scenario(), -2.15, b -> b)).doesNotFire("CAUTION-UNPROTECTED");
   }
 
   @Test
@@ -185,8 +204,8 @@ class CautionRulesTest {
 
   @Test
   void noLossCautionWhenTheFixedTargetIsT10() {
-    assertThat(coldest(new Scenario().policy(fixed(-2.2)), 3.0, b -> b).fired())
-        .doesNotContain("CAUTION-TARGET-BELOW-T10");
+    BundledRules.assertFired(coldest(new Scenario().policy(fixed(-2.2)), 3.0, b -> b))
+        .doesNotFire("CAUTION-TARGET-BELOW-T10");
   }
 
   /** Two blocks of 152 m³/h each on a well giving 200 m³/h: one must go without. */
@@ -209,7 +228,7 @@ class CautionRulesTest {
   @Test
   void notRankedByAreaWhenEveryBlockHasAValue() {
     BundledRules.Run r = shortWell(10000);
-    assertThat(r.fired()).contains("WATER-SHORT").doesNotContain("CAUTION-RANKED-BY-AREA");
+    BundledRules.assertFired(r).fires("WATER-SHORT").doesNotFire("CAUTION-RANKED-BY-AREA");
   }
 
   @Test

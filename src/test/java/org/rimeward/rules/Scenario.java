@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
+import org.rimeward.physics.Wind;
 import org.rimeward.rules.facts.BlockFact;
 import org.rimeward.rules.facts.BlockNight;
 import org.rimeward.rules.facts.Measure;
@@ -28,6 +29,8 @@ final class Scenario {
   static final ZonedDateTime FIRST = DATE.atTime(18, 0).atZone(ZONE);
   static final Instant SUNSET = DATE.atTime(19, 40).atZone(ZONE).toInstant();
   static final Instant SUNRISE = DATE.plusDays(1).atTime(6, 30).atZone(ZONE).toInstant();
+  /** Sea level, ICAO standard atmosphere. */
+  static final double PRESSURE_KPA = 101.325;
 
   PolicyFact policy = new PolicyFact(TargetBasis.T10, Double.NaN, 1.0, StopBasis.WET_BULB_ABOVE_FREEZING);
   final List<Object> facts = new ArrayList<>();
@@ -38,6 +41,12 @@ final class Scenario {
 
   Scenario policy(PolicyFact p) {
     this.policy = p;
+    return this;
+  }
+
+  /** Facts inserted as they are, e.g. thresholds of a test's own. */
+  Scenario fact(Object f) {
+    facts.add(f);
     return this;
   }
 
@@ -53,7 +62,7 @@ final class Scenario {
 
   List<Object> facts() {
     List<Object> all = new ArrayList<>();
-    all.add(new NightFact(DATE, ZONE, SUNSET, SUNRISE));
+    all.add(new NightFact(DATE, ZONE, SUNSET, SUNRISE, PRESSURE_KPA));
     all.add(policy);
     all.addAll(facts);
     return all;
@@ -63,7 +72,7 @@ final class Scenario {
     final String id;
     String crop = "apple";
     String stage = "full-bloom";
-    boolean bloom = true;
+    boolean flowering = true;
     double areaHa = 4;
     double t10C = -2.2;
     double t90C = -3.9;
@@ -77,6 +86,7 @@ final class Scenario {
     double[] wetBulb;
     double depressionC = 1.0;
     double[] wind;
+    double[] dew;
     double[] rate;
     double[] cloud;
 
@@ -90,9 +100,9 @@ final class Scenario {
       return this;
     }
 
-    BlockBuilder stage(String s, boolean isBloom) {
+    BlockBuilder stage(String s, boolean isFlowering) {
       stage = s;
-      bloom = isBloom;
+      flowering = isFlowering;
       return this;
     }
 
@@ -130,11 +140,18 @@ final class Scenario {
       return this;
     }
 
+    /** Dew point per hour; by default read back from the wet bulb with the one-third rule. */
+    BlockBuilder dew(double... c) {
+      dew = c;
+      return this;
+    }
+
     BlockBuilder depression(double c) {
       depressionC = c;
       return this;
     }
 
+    /** Wind at 10 m per hour, as forecasts report it; 2 m follows by FAO-56 Eq. 47. */
     BlockBuilder wind(double... ms) {
       wind = ms;
       return this;
@@ -163,27 +180,33 @@ final class Scenario {
         dry[i] = air[i] - depressionC;
         wet[i] = wetBulb[i] - depressionC;
       }
+      double[] wind10 = wind != null ? wind : fill(n, 1.0);
+      double[] wind2 = java.util.Arrays.stream(wind10).map(u -> Wind.at2mMs(u, 10.0)).toArray();
+      double[] dewC = dew;
+      if (dewC == null) {
+        // Knox, Nevius & Knox (2017) one-third rule, Tw ≈ T − (T − Td)/3, read backwards: enough
+        // for a fixture whose rules never compute a wet bulb from a dew point.
+        dewC = new double[n];
+        for (int i = 0; i < n; i++) {
+          dewC[i] = Math.min(wetBulb[i], air[i] - 3 * (air[i] - wetBulb[i]));
+        }
+      }
       v.put(Measure.AIR_C, air);
+      v.put(Measure.DEW_POINT_C, dewC);
       v.put(Measure.WET_BULB_C, wetBulb);
       v.put(Measure.DRY_BUD_C, dry);
       v.put(Measure.WET_BUD_C, wet);
-      v.put(Measure.WIND_2M_MS, wind != null ? wind : fill(n, 1.0));
+      v.put(Measure.WIND_10M_MS, wind10);
+      v.put(Measure.WIND_2M_MS, wind2);
       v.put(Measure.REQUIRED_RATE_MM_H, rate != null ? rate : fill(n, 2.0));
       v.put(Measure.CLOUD_PCT, cloud != null ? cloud : fill(n, 0));
       v.put(Measure.SOLAR_WM2, fill(n, 0));
+      // The series and its summary are built the one way the planner builds them.
       NightSeries s = new NightSeries(t, lines, v);
-      int cold = s.indexOfMin(Measure.DRY_BUD_C);
-      double maxWindFreezing = 0;
-      for (int i = 0; i < n; i++) {
-        if (air[i] <= 0) {
-          maxWindFreezing = Math.max(maxWindFreezing, v.get(Measure.WIND_2M_MS)[i]);
-        }
-      }
-      facts.add(new BlockFact(id, crop, null, stage, stage.replace('-', ' '), bloom, areaHa, t10C, t90C,
+      facts.add(new BlockFact(id, crop, null, stage, stage.replace('-', ' '), flowering, areaHa, t10C, t90C,
           "test table", 0, valuePerHa, rateMmH > 0, rateMmH, source, coverC > 0, coverC,
           coverC > 0 ? "test cover" : null, deployHours));
-      facts.add(new BlockNight(id, s, min(air), min(dry), min(wetBulb), min(wet), depressionC,
-          s.timeAt(cold), lines[cold], killPct, maxWindFreezing));
+      facts.add(BlockNight.of(id, s, killPct));
       return Scenario.this;
     }
   }

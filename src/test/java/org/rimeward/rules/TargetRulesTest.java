@@ -21,8 +21,8 @@ class TargetRulesTest {
   @Test
   void t10BasisTakesTheStagesTenPercentKillTemperature() {
     BundledRules.Run r = BundledRules.run(new Scenario().block("b1").hourly(WARM, WARM).done());
-    assertThat(r.firedFor("b1")).contains("TARGET-T10").doesNotContain("TARGET-FIXED");
-    assertThat(r.one(Target.class, "b1")).isEqualTo(new Target("b1", -2.2, "t10"));
+    BundledRules.assertFired(r, "b1").fires("TARGET-T10").doesNotFire("TARGET-FIXED");
+    assertThat(r.one(Target.class, "b1")).isEqualTo(new Target("b1", -2.2, TargetBasis.T10));
     assertThat(r.explanation("TARGET-T10", "b1"))
         .contains("-2.2 °C", "apple", "full bloom", "test table");
   }
@@ -31,22 +31,22 @@ class TargetRulesTest {
   void t10DoesNotFireUnderAFixedTarget() {
     BundledRules.Run r = BundledRules.run(new Scenario().policy(fixed(-2.0))
         .block("b1").hourly(WARM, WARM).done());
-    assertThat(r.firedFor("b1")).doesNotContain("TARGET-T10");
+    BundledRules.assertFired(r, "b1").doesNotFire("TARGET-T10");
   }
 
   @Test
   void fixedBasisTakesTheFarmsTargetAndStillNamesT10() {
     BundledRules.Run r = BundledRules.run(new Scenario().policy(fixed(-2.0))
         .block("b1").hourly(WARM, WARM).done());
-    assertThat(r.firedFor("b1")).containsOnlyOnce("TARGET-FIXED");
-    assertThat(r.one(Target.class, "b1")).isEqualTo(new Target("b1", -2.0, "fixed"));
+    BundledRules.assertFired(r, "b1").firesOnce("TARGET-FIXED");
+    assertThat(r.one(Target.class, "b1")).isEqualTo(new Target("b1", -2.0, TargetBasis.FIXED));
     assertThat(r.explanation("TARGET-FIXED", "b1")).contains("-2.0 °C", "-2.2 °C", "full bloom");
   }
 
   @Test
   void fixedDoesNotFireUnderT10() {
     BundledRules.Run r = BundledRules.run(new Scenario().block("b1").hourly(WARM, WARM).done());
-    assertThat(r.firedFor("b1")).doesNotContain("TARGET-FIXED");
+    BundledRules.assertFired(r, "b1").doesNotFire("TARGET-FIXED");
   }
 
   @Test

@@ -57,7 +57,7 @@ class WaterRulesTest {
     assertThat(w.wantedVolumeM3()).isCloseTo(ONE_NIGHT_M3, within(1e-6));
     assertThat(w.shortOfWater()).isFalse();
     assertThat(f.explanation()).contains("pond", "152 m3/h", "500 m3/h", "1363 m3", "5000 m3");
-    assertThat(r.fired()).doesNotContain("WATER-SHORT");
+    BundledRules.assertFired(r).doesNotFire("WATER-SHORT");
   }
 
   @Test
@@ -74,7 +74,7 @@ class WaterRulesTest {
     double[] warm = Scenario.fill(16, 5.0);
     BundledRules.Run r = BundledRules.run(new Scenario().source("pond", 500, 5000)
         .block("b1").sprinklers(3.8, "pond").hourly(warm, warm).done());
-    assertThat(r.fired()).doesNotContain("WATER-BUDGET", "WATER-SHARING-TERMS");
+    BundledRules.assertFired(r).doesNotFire("WATER-BUDGET", "WATER-SHARING-TERMS");
     assertThat(r.all(WaterBalance.class)).isEmpty();
   }
 
@@ -111,7 +111,7 @@ class WaterRulesTest {
     s.block("cherry").sprinklers(4.0, "bore").area(2.5).kill(100).value(48000)
         .rate(Scenario.fill(16, 1.93)).hourly(Scenario.FROST_AIR, Scenario.FROST_WET).done();
     BundledRules.Run r = BundledRules.run(s);
-    assertThat(r.fired()).doesNotContain("WATER-SHORT", "WATER-REDUCED-RATE");
+    BundledRules.assertFired(r).doesNotFire("WATER-SHORT", "WATER-REDUCED-RATE");
     assertThat(balance(r, "bore").grant("cherry").kind()).isEqualTo(GrantKind.FULL);
   }
 
@@ -130,9 +130,9 @@ class WaterRulesTest {
     assertThat(r.explanation("WATER-PART-AREA", "b2"))
         .contains("76 m3/h", "2.0 ha of its 4.0 ha", "3.80 mm/h", "152 m3/h", "sets:");
     assertThat(r.one(BlockStatus.class, "b2").status()).isEqualTo(Status.PARTLY_PROTECTED);
-    assertThat(r.firedFor("b2")).contains("STATUS-PARTLY-PROTECTED").doesNotContain("WATER-WITHOUT");
+    BundledRules.assertFired(r, "b2").fires("STATUS-PARTLY-PROTECTED").doesNotFire("WATER-WITHOUT");
     assertThat(r.one(BlockStatus.class, "b1").status()).isEqualTo(Status.PROTECTED);
-    assertThat(r.firedFor("b1")).doesNotContain("WATER-PART-AREA", "STATUS-PARTLY-PROTECTED");
+    BundledRules.assertFired(r, "b1").doesNotFire("WATER-PART-AREA", "STATUS-PARTLY-PROTECTED");
     assertThat(r.firing("WATER-SHORT").explanation()).contains("Protected whole: b1", "in part: b2",
         "without water: none", "228 m3/h");
   }
@@ -150,14 +150,14 @@ class WaterRulesTest {
     assertThat(g.kind()).isEqualTo(GrantKind.SETS);
     assertThat(g.setIds()).containsExactly("north");
     assertThat(r.explanation("WATER-PART-SETS", "b2")).contains("sets north", "1.5 ha of 4.0 ha", "57 m3/h");
-    assertThat(r.fired()).doesNotContain("WATER-PART-AREA");
+    BundledRules.assertFired(r).doesNotFire("WATER-PART-AREA");
     assertThat(r.one(BlockStatus.class, "b2").status()).isEqualTo(Status.PARTLY_PROTECTED);
   }
 
   @Test
   void notShortOnFlowAtEquality() {
     BundledRules.Run r = twoOnAWell(304, 20000, 10000);
-    assertThat(r.fired()).contains("WATER-BUDGET").doesNotContain("WATER-SHORT", "WATER-WITHOUT",
+    BundledRules.assertFired(r).fires("WATER-BUDGET").doesNotFire("WATER-SHORT", "WATER-WITHOUT",
         "WATER-PART-AREA", "WATER-PART-SETS", "WATER-REDUCED-RATE");
     assertThat(balance(r, "well").shortOfWater()).isFalse();
   }
@@ -173,21 +173,21 @@ class WaterRulesTest {
     assertThat(w.flowShort()).isFalse();
     assertThat(w.grant("b1").kind()).isEqualTo(GrantKind.REDUCED_RATE);
     assertThat(w.volumeM3()).isCloseTo(1362.9, within(1e-6));
-    assertThat(r.firedFor("b1")).contains("WATER-REDUCED-RATE").doesNotContain("WATER-WITHOUT");
+    BundledRules.assertFired(r, "b1").fires("WATER-REDUCED-RATE").doesNotFire("WATER-WITHOUT");
   }
 
   @Test
   void notShortOnVolumeWithJustEnough() {
     BundledRules.Run r = BundledRules.run(sprinkled(new Scenario().source("pond", 500, 1363.0), "b1", "pond").done());
-    assertThat(r.fired()).doesNotContain("WATER-SHORT", "WATER-WITHOUT");
+    BundledRules.assertFired(r).doesNotFire("WATER-SHORT", "WATER-WITHOUT");
   }
 
   @Test
   void aBlockWhoseSmallestPartDoesNotFitGoesWithout() {
     // 152 + 15 = 167 m³/h: b2 could have 15 / 152 = 9.9 % of its area, under the 10 % floor.
     BundledRules.Run r = twoOnAWell(167, 20000, 10000);
-    assertThat(r.firedFor("b2")).containsOnlyOnce("WATER-WITHOUT").doesNotContain("WATER-WITHOUT-COVERED");
-    assertThat(r.firedFor("b1")).doesNotContain("WATER-WITHOUT");
+    BundledRules.assertFired(r, "b2").firesOnce("WATER-WITHOUT").doesNotFire("WATER-WITHOUT-COVERED");
+    BundledRules.assertFired(r, "b1").doesNotFire("WATER-WITHOUT");
     // Stake per m³ of the least protecting water (here the installed rate): 0.4 × 4 × 10000 / 1362.93.
     WithoutWater w = r.one(WithoutWater.class, "b2");
     assertThat(w.sourceId()).isEqualTo("well");
@@ -202,7 +202,7 @@ class WaterRulesTest {
   @Test
   void aTenthOfTheBlockIsWorthSprinkling() {
     BundledRules.Run r = twoOnAWell(167.3, 20000, 10000);
-    assertThat(r.firedFor("b2")).contains("WATER-PART-AREA").doesNotContain("WATER-WITHOUT");
+    BundledRules.assertFired(r, "b2").fires("WATER-PART-AREA").doesNotFire("WATER-WITHOUT");
   }
 
   @Test
@@ -227,7 +227,7 @@ class WaterRulesTest {
     sprinkled(s, "b1", "well").value(20000).rate(Scenario.fill(16, 3.5)).done();
     sprinkled(s, "b2", "well").value(10000).rate(Scenario.fill(16, 3.5)).covers(1.0, 2).done();
     BundledRules.Run r = BundledRules.run(s);
-    assertThat(r.firedFor("b2")).containsOnlyOnce("WATER-WITHOUT-COVERED").doesNotContain("WATER-WITHOUT");
+    BundledRules.assertFired(r, "b2").firesOnce("WATER-WITHOUT-COVERED").doesNotFire("WATER-WITHOUT");
     assertThat(r.one(WithoutWater.class, "b2").valuePerM3())
         .isCloseTo(0.4 * 4 * 10000 / (152.0 * (7 + 58 / 60.0)), within(1e-9));
     assertThat(r.explanation("WATER-WITHOUT-COVERED", "b2")).contains("b2", "well", "1.0 °C", "13.2",
@@ -238,6 +238,6 @@ class WaterRulesTest {
   @Test
   void anUncoveredBlockThatGoesWithoutIsNotTheCoveredCase() {
     BundledRules.Run r = twoOnAWell(167, 20000, 10000);
-    assertThat(r.fired()).doesNotContain("WATER-WITHOUT-COVERED");
+    BundledRules.assertFired(r).doesNotFire("WATER-WITHOUT-COVERED");
   }
 }

@@ -8,17 +8,22 @@ import java.util.Objects;
  * series behind it. Temperatures are at the block (the forecast plus its cold-air offset).
  *
  * @param minDryBudC the coldest a dry, unprotected bud gets (air less radiative cooling)
- * @param minWetBudC the coldest a wetted bud would get (wet bulb less radiative cooling)
- * @param maxDepressionC the largest radiative depression of a bud below air
  * @param unprotectedKillPct expected share of buds killed without protection, from the kill curve
- * @param maxWindBelowFreezingMs the strongest 2 m wind while the air is at or below 0 °C
  */
 public record BlockNight(String blockId, NightSeries series, double minAirC, double minDryBudC,
-    double minWetBulbC, double minWetBudC, double maxDepressionC, Instant coldestAt,
-    int coldestLine, double unprotectedKillPct, double maxWindBelowFreezingMs) {
+    double minWetBulbC, Instant coldestAt, int coldestLine, double unprotectedKillPct) {
   public BlockNight {
     Objects.requireNonNull(blockId, "blockId");
     Objects.requireNonNull(series, "series");
     Objects.requireNonNull(coldestAt, "coldestAt");
+  }
+
+  /** A block's night summarised from its series: the one way the planner and tests build it. */
+  public static BlockNight of(String blockId, NightSeries s, double unprotectedKillPct) {
+    int cold = s.indexOfMin(Measure.DRY_BUD_C);
+    return new BlockNight(blockId, s, s.valueAt(Measure.AIR_C, s.indexOfMin(Measure.AIR_C)),
+        s.valueAt(Measure.DRY_BUD_C, cold),
+        s.valueAt(Measure.WET_BULB_C, s.indexOfMin(Measure.WET_BULB_C)), s.timeAt(cold),
+        s.lineAt(cold), unprotectedKillPct);
   }
 }

@@ -164,6 +164,83 @@ public final class NightSeries {
     return best;
   }
 
+  /**
+   * The largest value known (not NaN) at the steps between two moments and at the two moments
+   * themselves, with its moment; empty when none is known.
+   */
+  public List<Moment> maxKnown(Measure m, Instant from, Instant to) {
+    double[] v = values.get(m);
+    Moment best = null;
+    for (Instant end : new Instant[] {from, to}) {
+      double e = valueAtTime(m, end);
+      if (!Double.isNaN(e) && (best == null || e > best.value())) {
+        best = new Moment(end, e, false, lineAtOrAfter(end));
+      }
+    }
+    for (int i = 0; i < v.length; i++) {
+      Instant t = timeAt(i);
+      if (!t.isBefore(from) && !t.isAfter(to) && !Double.isNaN(v[i])
+          && (best == null || v[i] > best.value())) {
+        best = new Moment(t, v[i], false, lines[i]);
+      }
+    }
+    return best == null ? List.of() : List.of(best);
+  }
+
+  /**
+   * The first step between two moments (both included) whose value is unknown (NaN); empty if
+   * none. Steps outside the interval do not count, though a value at one of the moments is read
+   * between a step inside and one outside: {@link #maxKnown} leaves such a value out.
+   */
+  public List<Moment> firstUnknown(Measure m, Instant from, Instant to) {
+    double[] v = values.get(m);
+    for (int i = 0; i < v.length; i++) {
+      if (!timeAt(i).isBefore(from) && !timeAt(i).isAfter(to) && Double.isNaN(v[i])) {
+        return List.of(new Moment(timeAt(i), v[i], i == 0, lines[i]));
+      }
+    }
+    return List.of();
+  }
+
+  /**
+   * The largest value of {@code m} at the steps of an interval where {@code condition} is below
+   * {@code below}, with its step: the step in progress at {@code from} and the steps up to
+   * {@code to}. Empty when no such step has the condition.
+   */
+  public List<Moment> maxWhereBelow(Measure m, Instant from, Instant to, Measure condition,
+      double below) {
+    double[] v = values.get(m);
+    double[] c = values.get(condition);
+    int first = 0;
+    for (int i = 0; i < v.length; i++) {
+      if (!timeAt(i).isAfter(from)) {
+        first = i;
+      }
+    }
+    Moment best = null;
+    for (int i = first; i < v.length && !timeAt(i).isAfter(to); i++) {
+      if (c[i] < below && (best == null || v[i] > best.value())) {
+        best = new Moment(timeAt(i), v[i], false, lines[i]);
+      }
+    }
+    return best == null ? List.of() : List.of(best);
+  }
+
+  /** As {@link #firstStaysAtOrAbove}, the moment alone; null when the value never stays there. */
+  public Instant firstStaysAtOrAboveAt(Measure m, double threshold, Instant notBefore) {
+    List<Moment> found = firstStaysAtOrAbove(m, threshold, notBefore);
+    return found.isEmpty() ? null : found.get(0).at();
+  }
+
+  private int lineAtOrAfter(Instant t) {
+    for (int i = 0; i < epochSeconds.length; i++) {
+      if (!timeAt(i).isBefore(t)) {
+        return lines[i];
+      }
+    }
+    return lines[lines.length - 1];
+  }
+
   /** The step where the value is smallest (the first such step). */
   public int indexOfMin(Measure m) {
     double[] v = values.get(m);

@@ -16,22 +16,17 @@ public record SprinklePlan(String blockId, String sourceId, Instant start, Insta
     double requiredRateMmH, double installedRateMmH, double flowM3H, double waterM3,
     double killPct, double areaHa, double cropValuePerHa) {
 
-  /** The plan for a block between two moments: 1 mm over 1 ha is 10 m³. */
-  public static SprinklePlan of(BlockFact b, BlockNight n, Instant start, Instant stop) {
-    double hours = (stop.getEpochSecond() - start.getEpochSecond()) / 3600.0;
+  /** The plan for a block over the run its need was read for: 1 mm over 1 ha is 10 m³. */
+  public static SprinklePlan of(BlockFact b, BlockNight n, SprinkleNeed need) {
+    double hours = (need.stop().getEpochSecond() - need.start().getEpochSecond()) / 3600.0;
     double flow = b.installedRateMmH() * b.areaHa() * 10.0;
-    double required = n.series().max(Measure.REQUIRED_RATE_MM_H, start, stop);
-    return new SprinklePlan(b.blockId(), b.sourceId(), start, stop, required,
-        b.installedRateMmH(), flow, flow * hours, n.unprotectedKillPct(), b.areaHa(),
-        b.cropValuePerHa());
+    return new SprinklePlan(b.blockId(), b.sourceId(), need.start(), need.stop(),
+        need.requiredRateMmH(), b.installedRateMmH(), flow, flow * hours, n.unprotectedKillPct(),
+        b.areaHa(), b.cropValuePerHa());
   }
 
   public double hours() {
     return (stop.getEpochSecond() - start.getEpochSecond()) / 3600.0;
-  }
-
-  public boolean rateShort() {
-    return installedRateMmH < requiredRateMmH;
   }
 
   Demand demand(java.util.List<org.rimeward.water.IrrigationSet> sets) {
