@@ -30,16 +30,20 @@ public record PlanDocument(
     List<Water> water,
     List<String> cautions,
     List<Rule> farmRules,
+    List<TimelineEntry> timeline,
     @JsonInclude(JsonInclude.Include.NON_NULL) OffsetDateTime now,
     @JsonInclude(JsonInclude.Include.NON_NULL) Readings readings,
     @JsonInclude(JsonInclude.Include.NON_NULL) List<Change> changes) {
   /** A plan made at dusk: no {@code now}, {@code readings} or {@code changes}. */
   public PlanDocument(String farm, String toolVersion, Night night, Policy policy,
-      List<Block> blocks, List<Water> water, List<String> cautions, List<Rule> farmRules) {
-    this(farm, toolVersion, night, policy, blocks, water, cautions, farmRules, null, null, null);
+      List<Block> blocks, List<Water> water, List<String> cautions, List<Rule> farmRules,
+      List<TimelineEntry> timeline) {
+    this(farm, toolVersion, night, policy, blocks, water, cautions, farmRules, timeline, null, null,
+        null);
   }
 
   public PlanDocument {
+    timeline = timeline == null ? List.of() : List.copyOf(timeline);
     blocks = blocks == null ? List.of() : List.copyOf(blocks);
     water = water == null ? List.of() : List.copyOf(water);
     cautions = cautions == null ? List.of() : List.copyOf(cautions);
@@ -335,6 +339,33 @@ public record PlanDocument(
         }
       }
       return Optional.empty();
+    }
+  }
+
+  /**
+   * One moment of the night at a glance, in time order.
+   *
+   * @param event {@code not-covered}, {@code cover-crew-out}, {@code covers-on-by}, {@code alarm},
+   *     {@code pump-on}, {@code sprinklers-on}, {@code sprinklers-off}, {@code pump-off},
+   *     {@code covers-off}
+   * @param what the entry in words, metric
+   * @param block the block it concerns, or null; {@code source} the water source, or null
+   * @param past it was due before the forecast starts
+   * @param flowM3H for a pump going on, the most it draws until it goes off
+   * @param until for {@code not-covered}, when the forecast starts
+   */
+  @JsonInclude(JsonInclude.Include.NON_NULL)
+  public record TimelineEntry(
+      OffsetDateTime at,
+      String event,
+      String what,
+      String block,
+      String source,
+      boolean past,
+      @JsonSerialize(using = Decimals.One.class) Double flowM3H,
+      OffsetDateTime until) {
+    TimelineEntry withWhat(String words) {
+      return new TimelineEntry(at, event, words, block, source, past, flowM3H, until);
     }
   }
 

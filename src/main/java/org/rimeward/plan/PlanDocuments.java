@@ -65,10 +65,11 @@ public final class PlanDocuments {
     NightUpdate u = plan.update();
     if (u == null) {
       return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
-          plan.cautions(), farmRules);
+          plan.cautions(), farmRules, Timeline.of(plan, blocks));
     }
     return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
-        plan.cautions(), farmRules, time(u.now(), zone), NightUpdateView.readings(u, zone),
+        plan.cautions(), farmRules, Timeline.of(plan, blocks), time(u.now(), zone),
+        NightUpdateView.readings(u, zone),
         NightUpdateView.changes(u));
   }
 

@@ -53,6 +53,63 @@ public final class PlanText {
     sb.append("  Decision support only: check thermometers at bud height in each block, and follow"
         + " local codes, water rights and licensed practice.\n\n");
 
+    if (plan.blocks().stream().noneMatch(b -> !b.actions().isEmpty())) {
+      quiet(sb, plan, fmt);
+    } else {
+      timeline(sb, plan, fmt);
+      blocksAndWater(sb, plan, fmt);
+    }
+    cautions(sb, plan, words);
+
+    if (explain) {
+      sb.append("\nWhy (rules in the order they fired)\n");
+      for (PlanDocument.Block b : plan.blocks()) {
+        sb.append("  ").append(b.block()).append('\n');
+        for (PlanDocument.Rule r : b.rules()) {
+          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
+        }
+      }
+      if (!plan.farmRules().isEmpty()) {
+        sb.append("  farm-wide\n");
+        for (PlanDocument.Rule r : plan.farmRules()) {
+          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
+        }
+      }
+    } else {
+      sb.append("\nRun again with --explain to see every rule that fired, with its numbers.\n");
+    }
+    return sb.toString();
+  }
+
+  /** The night at a glance: what to do when, in time order. */
+  private static void timeline(StringBuilder sb, PlanDocument plan, UnitFormat fmt) {
+    sb.append("Tonight, in time order\n");
+    List<String> what = Timeline.words(plan, fmt);
+    List<String[]> rows = new ArrayList<>();
+    for (int i = 0; i < plan.timeline().size(); i++) {
+      PlanDocument.TimelineEntry e = plan.timeline().get(i);
+      String who = e.block() != null ? e.block() : e.source() != null ? e.source() : "";
+      rows.add(new String[] {(e.past() ? "PAST " : "") + fmt.clock(e.at()), who, what.get(i)});
+    }
+    if (!rows.isEmpty()) {
+      table(sb, rows);
+    }
+    sb.append('\n');
+  }
+
+  /** A night that needs nothing: one line per block. */
+  private static void quiet(StringBuilder sb, PlanDocument plan, UnitFormat fmt) {
+    sb.append("Nothing to do tonight: no block needs protection.\n");
+    List<String[]> rows = new ArrayList<>();
+    for (PlanDocument.Block b : plan.blocks()) {
+      String crop = b.crop() + (b.variety() != null ? " " + b.variety() : "") + " / " + b.stageName();
+      rows.add(new String[] {b.block(), crop, "coldest bud " + fmt.temp(b.minBudC()),
+          b.atRisk() ? b.risk() + ", nothing needed" : "nothing needed"});
+    }
+    table(sb, rows);
+  }
+
+  private static void blocksAndWater(StringBuilder sb, PlanDocument plan, UnitFormat fmt) {
     List<String[]> rows = new ArrayList<>();
     rows.add(new String[] {"block", "crop / stage", "risk", "coldest bud", "plan", "start", "stop",
         "need / installed", "water"});
@@ -122,6 +179,11 @@ public final class PlanText {
           .append('\n');
     }
 
+  }
+
+  /** Cautions that matter tonight first, block by block; the standing ones folded into one line. */
+  private static void cautions(StringBuilder sb, PlanDocument plan,
+      Function<PlanDocument.Rule, String> words) {
     sb.append("\nCautions\n");
     for (PlanDocument.Block b : plan.blocks()) {
       for (PlanDocument.Rule c : b.cautionRules()) {
@@ -133,28 +195,8 @@ public final class PlanText {
         sb.append("  - ").append(words.apply(c)).append('\n');
       }
     }
-    for (String c : StandingCautions.ALL) {
-      sb.append("  - ").append(c).append('\n');
-    }
+    sb.append("  - ").append(StandingCautions.ONE_LINE).append('\n');
 
-    if (explain) {
-      sb.append("\nWhy (rules in the order they fired)\n");
-      for (PlanDocument.Block b : plan.blocks()) {
-        sb.append("  ").append(b.block()).append('\n');
-        for (PlanDocument.Rule r : b.rules()) {
-          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
-        }
-      }
-      if (!plan.farmRules().isEmpty()) {
-        sb.append("  farm-wide\n");
-        for (PlanDocument.Rule r : plan.farmRules()) {
-          sb.append("    ").append(r.id()).append(": ").append(words.apply(r)).append('\n');
-        }
-      }
-    } else {
-      sb.append("\nRun again with --explain to see every rule that fired, with its numbers.\n");
-    }
-    return sb.toString();
   }
 
   /** One sprinkling row: what runs, at what rate, over how much of the block; no times without water. */

@@ -13,5 +13,10 @@ public final class StandingCautions {
       "Critical temperatures are published averages for 30 minutes at bud tissue temperature;"
           + " real buds vary with variety, vigour and the weather of the days before.");
 
+  /** The same cautions folded into one line, for a plan a manager reads at a glance. */
+  public static final String ONE_LINE = "Always: decision support only, the grower decides; check"
+      + " thermometers at bud height in each block (these are forecast estimates); follow local codes,"
+      + " water rights and licensed practice; critical temperatures are published averages.";
+
   private StandingCautions() {}
 }

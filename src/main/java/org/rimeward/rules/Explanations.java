@@ -28,6 +28,13 @@ import org.rimeward.units.UnitSystem;
 public final class Explanations {
   private static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z][A-Za-z0-9_]*(?:\\.[A-Za-z][A-Za-z0-9_]*)*)}");
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
+  /**
+   * A fixed quantity written in both unit systems, {@code {~0 °C|32 °F}}: a threshold quoted from
+   * a source, shown in the reader's units, never converted (a source's "10 mph" stays 10 mph).
+   */
+  private static final Pattern LITERAL = Pattern.compile("\\{~([^|{}]*)\\|([^{}]*)}");
+  /** Cubic metres in 1,000 US gallons (NIST SP 811: 1 gal = 3.785411784 L). */
+  private static final double M3_PER_1000_GAL = 3.785411784;
 
   private Explanations() {}
 
@@ -73,7 +80,13 @@ public final class Explanations {
    */
   static String render(String template, Map<String, Object> values, UnitSystem units, ZoneId zone,
       Map<List<Object>, String> formatted) {
-    Matcher m = PLACEHOLDER.matcher(template);
+    Matcher lit = LITERAL.matcher(template);
+    StringBuilder both = new StringBuilder();
+    while (lit.find()) {
+      lit.appendReplacement(both, Matcher.quoteReplacement(units == UnitSystem.US ? lit.group(2) : lit.group(1)));
+    }
+    lit.appendTail(both);
+    Matcher m = PLACEHOLDER.matcher(both.toString());
     StringBuilder sb = new StringBuilder();
     while (m.find()) {
       String path = m.group(1);
@@ -110,9 +123,11 @@ public final class Explanations {
         return "more than any sprinkler can give";
       }
       if (name.endsWith("PerM3")) {
-        // A stake per cubic metre (crop value or hectares saved), not a volume: such ratios span
+        // A stake per unit of water (crop value or hectares saved), not a volume: such ratios span
         // orders of magnitude, so three significant figures, not a fixed number of decimals.
-        return new BigDecimal(d).round(new MathContext(3)).stripTrailingZeros().toPlainString();
+        double shown = units == UnitSystem.US ? d * M3_PER_1000_GAL : d;
+        return new BigDecimal(shown).round(new MathContext(3)).stripTrailingZeros().toPlainString()
+            + (units == UnitSystem.US ? " per 1,000 gal" : " per m³");
       }
       Dimension dim = dimensionOf(name);
       if (dim == null) {

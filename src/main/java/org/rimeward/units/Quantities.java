@@ -101,7 +101,10 @@ public final class Quantities {
 
   /** Formats a canonical value for a person, with its unit, in {@code system}. */
   public static String format(double canonical, Dimension dim, UnitSystem system, int decimals) {
-    String num = String.format(Locale.ROOT, "%." + decimals + "f", display(canonical, dim, system));
+    // Gallons run to six and seven digits: grouped, so 1,250,000 gal reads at a glance.
+    boolean grouped = system == UnitSystem.US && (dim == Dimension.VOLUME || dim == Dimension.FLOW);
+    String num = String.format(Locale.ROOT, "%" + (grouped ? "," : "") + "." + decimals + "f",
+        display(canonical, dim, system));
     if (num.matches("-0(\\.0*)?")) {
       num = num.substring(1);
     }

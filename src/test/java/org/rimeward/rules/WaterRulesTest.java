@@ -193,7 +193,7 @@ class WaterRulesTest {
     assertThat(w.sourceId()).isEqualTo("well");
     assertThat(w.valuePerM3()).isCloseTo(0.4 * 4 * 10000 / ONE_NIGHT_M3, within(1e-9));
     assertThat(r.explanation("WATER-WITHOUT", "b2"))
-        .contains("b2", "well", "11.7 crop value saved per m³", "15 m3/h", "40 %", "Keep its sprinklers off")
+        .contains("b2", "well", "crop value saved 11.7 per m³", "15 m3/h", "40 %", "Keep its sprinklers off")
         .doesNotContain(" m3 crop");
     assertThat(r.one(BlockStatus.class, "b2").status()).isEqualTo(Status.SHORT_OF_WATER);
     assertThat(r.one(BlockStatus.class, "b1").status()).isEqualTo(Status.PROTECTED);
@@ -216,7 +216,7 @@ class WaterRulesTest {
     WaterBalance w = balance(r, "well");
     assertThat(w.allocation().rankedByValue()).isFalse();
     assertThat(w.allocation().dropped()).containsExactly("b1");
-    assertThat(r.explanation("WATER-WITHOUT", "b1")).contains("0.00117 hectares of buds saved per m³");
+    assertThat(r.explanation("WATER-WITHOUT", "b1")).contains("hectares of buds saved 0.00117 per m³");
   }
 
   @Test

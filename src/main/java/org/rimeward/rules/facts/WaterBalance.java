@@ -85,6 +85,6 @@ public record WaterBalance(String sourceId, double maxFlowM3H, double availableM
 
   /** How blocks were ranked, in words. */
   public String basis() {
-    return allocation.rankedByValue() ? "crop value saved per m³" : "hectares of buds saved per m³";
+    return allocation.rankedByValue() ? "crop value saved" : "hectares of buds saved";
   }
 }
