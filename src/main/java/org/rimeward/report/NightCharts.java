@@ -34,7 +34,7 @@ final class NightCharts {
 
   private NightCharts() {}
 
-  static String block(PlanDocument.Block b, UnitFormat fmt, ZoneId zone) {
+  static String block(PlanDocument.Block b, UnitFormat fmt, ZoneId zone, OffsetDateTime now) {
     XYSeries air = new XYSeries("forecast air");
     XYSeries bud = new XYSeries("bud, estimated (dry)");
     XYSeries wet = new XYSeries("wet bulb");
@@ -81,6 +81,11 @@ final class NightCharts {
         band.setAlpha(0.18f);
         plot.addDomainMarker(band, ChartSvg.BEHIND);
       }
+    }
+    if (now != null) {
+      // A re-plan from the station's readings: the curves left of now follow the readings.
+      plot.addDomainMarker(ChartSvg.line(millis(now), "now " + fmt.clock(now) + " (readings to here)",
+          ChartSvg.GREEN, ChartSvg.DASHED, RectangleAnchor.TOP, TextAnchor.TOP_RIGHT));
     }
     plot.addRangeMarker(ChartSvg.line(fmt.tempValue(b.targetC()), "target " + fmt.temp(b.targetC()),
         ChartSvg.PURPLE, ChartSvg.SOLID, RectangleAnchor.TOP_RIGHT, TextAnchor.BOTTOM_RIGHT));

@@ -30,7 +30,8 @@ public final class NightPage {
 
   /** The page. */
   public record Model(String title, String farm, String night, String zone, String sunset,
-      String sunrise, String coldest, String units, List<String> cautions, List<BlockView> atRisk,
+      String sunrise, String coldest, String readings, String units, List<String> cautions,
+      List<BlockView> atRisk,
       List<BlockView> quiet, List<WaterView> water, Footer footer) {
     public boolean hasFooter() {
       return footer != null;
@@ -103,7 +104,7 @@ public final class NightPage {
           b.actions().stream().map(a -> PlanText.action(a, fmt)).toList(),
           b.sprinkle().filter(s -> s.waterGranted() && s.start() != null)
               .map(s -> fmt.clock(s.start())).orElse(""),
-          chart ? NightCharts.block(b, fmt, zone) : "",
+          chart ? NightCharts.block(b, fmt, zone, plan.now()) : "",
           b.rules().stream().map(r -> new RuleView(r.id(), r.kind(), words.apply(r))).toList(),
           b.cautionRules().stream().map(words).toList(),
           done.getOrDefault(b.block(), List.of()));
@@ -120,9 +121,22 @@ public final class NightPage {
     }
     return new Model("Frost plan: " + plan.farm() + ", night of " + n.date(), plan.farm(),
         n.date().toString(), n.zone(), fmt.dayClock(n.sunset()), fmt.dayClock(n.sunrise()),
-        fmt.temp(n.minAirC()) + " at " + fmt.dayClock(n.coldestAt()),
+        fmt.temp(n.minAirC()) + " at " + fmt.dayClock(n.coldestAt()), readings(plan, fmt),
         fmt.symbol(org.rimeward.units.Dimension.TEMPERATURE), cautions, atRisk, quiet, water,
         footer);
+  }
+
+  /** A re-plan's readings in one line; empty for a plan made at dusk. */
+  static String readings(PlanDocument plan, UnitFormat fmt) {
+    PlanDocument.Readings r = plan.readings();
+    if (r == null || plan.now() == null) {
+      return "";
+    }
+    return "Re-planned at " + fmt.dayClock(plan.now()) + " from the station's readings ("
+        + r.file() + (r.station() != null ? ", station " + r.station() : "") + "; last reading "
+        + fmt.clock(r.lastAt()) + (r.biasC() != null ? "; air " + fmt.tempDelta(r.biasC())
+        + " against the forecast over the last hour" : "") + (r.stale() ? "; NO reading in the"
+        + " last hour" : "") + ")";
   }
 
   /** The page as one self-contained HTML file. */

@@ -88,6 +88,23 @@ class NightPageTest {
     assertThat(section(html, "water-pond")).contains("m3/h");
   }
 
+  /** A re-plan from the station's readings says so in the header and marks now on the charts. */
+  @Test
+  void aReplanShowsItsReadingsAndNow() throws IOException {
+    String json = Files.readString(Path.of("src/test/resources/golden/demo-plan.json"))
+        .replaceFirst("\"farm\" :", "\"now\" : \"2026-04-15T00:30-07:00\", \"readings\" : {"
+            + "\"file\" : \"station-readings.csv\", \"last_at\" : \"2026-04-15T00:25-07:00\","
+            + " \"bias_c\" : -0.80, \"station\" : \"north\", \"stale\" : false},\n  \"farm\" :");
+    PlanDocument replan = PlanJson.read(json);
+    String page = NightPage.html(NightPage.of(replan, UnitFormat.of(UnitSystem.METRIC),
+        PlanDocument.Rule::explanation, Map.of(), null));
+    assertThat(page).contains("Re-planned at Wed 00:30 from the station&#39;s readings"
+        + " (station-readings.csv, station north; last reading 00:25; air -0.8 °C against the"
+        + " forecast over the last hour)");
+    assertThat(section(page, "block-hollow-cherry")).contains("now 00:30 (readings to here)");
+    assertThat(html).doesNotContain("readings to here");
+  }
+
   @Test
   void thePageFetchesNothing() {
     assertNoExternalFetch(html);
