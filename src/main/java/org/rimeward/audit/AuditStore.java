@@ -42,7 +42,7 @@ public final class AuditStore implements AutoCloseable {
 
   static final DateTimeFormatter STORED_INSTANT =
       DateTimeFormatter.ofPattern("uuuu-MM-dd'T'HH:mm:ss.SSSSSSSSS'Z'").withZone(ZoneOffset.UTC);
-  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final ObjectMapper JSON = org.rimeward.io.Json.mapper();
 
   private final TrailConnection db;
 

@@ -3,7 +3,6 @@ package org.rimeward.audit;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.time.Instant;
@@ -19,7 +18,7 @@ import java.util.Optional;
  * actions of the same night, with times. The evidence an insurer asks for.
  */
 public final class CrewReport {
-  private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+  private static final ObjectMapper JSON = org.rimeward.io.Json.mapper();
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
 
   private CrewReport() {}
@@ -87,7 +86,7 @@ public final class CrewReport {
     try {
       ObjectNode root = (ObjectNode) JSON.readTree(json);
       root.set(key, json(actions, zone));
-      return JSON.writeValueAsString(root) + "\n";
+      return org.rimeward.io.Json.pretty(root);
     } catch (JsonProcessingException | ClassCastException e) {
       throw new IllegalStateException("could not add the crew's actions to the JSON", e);
     }

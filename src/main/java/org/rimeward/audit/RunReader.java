@@ -23,7 +23,7 @@ import org.rimeward.crop.ProfileEdit;
  * Works on a read-only connection.
  */
 final class RunReader {
-  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final ObjectMapper JSON = org.rimeward.io.Json.mapper();
 
   private final Connection conn;
 

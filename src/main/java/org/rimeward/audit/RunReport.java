@@ -11,6 +11,7 @@ import org.rimeward.io.Json;
 import org.rimeward.plan.PlanCsv;
 import org.rimeward.plan.PlanDocument;
 import org.rimeward.plan.PlanJson;
+import org.rimeward.plan.PlanText;
 import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 
@@ -104,7 +105,7 @@ public final class RunReport {
         s.append("  no action\n");
       }
       for (PlanDocument.Action a : b.actions()) {
-        s.append("  ").append(action(a, fmt)).append('\n');
+        s.append("  ").append(PlanText.action(a, fmt)).append('\n');
       }
       for (String c : b.cautions()) {
         s.append("  caution: ").append(c).append('\n');
@@ -149,22 +150,6 @@ public final class RunReport {
           in.sha256(), in.name(), in.sizeBytes()));
     }
     return s.toString();
-  }
-
-  /** An action in a line of words, in the display units. */
-  public static String action(PlanDocument.Action a, UnitFormat fmt) {
-    if (a instanceof PlanDocument.Cover c) {
-      return "cover: deploy from " + fmt.clock(c.deployStart()) + ", on by "
-          + fmt.clock(c.deployBy()) + ", remove at " + fmt.clock(c.remove());
-    }
-    PlanDocument.Sprinkle s = (PlanDocument.Sprinkle) a;
-    if (!s.waterGranted()) {
-      return "sprinklers off: no water from " + s.source() + " (" + fmt.rate(s.requiredRateMmH())
-          + " needed)";
-    }
-    return "sprinkle " + fmt.clock(s.start()) + " to " + fmt.clock(s.stop()) + ": "
-        + fmt.rate(s.requiredRateMmH()) + " needed, " + fmt.rate(s.installedRateMmH())
-        + " installed, " + fmt.volume(s.waterM3()) + " from " + s.source();
   }
 
   static String kindName(InputKind kind) {

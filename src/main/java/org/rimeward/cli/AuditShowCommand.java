@@ -7,6 +7,8 @@ import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
 import org.rimeward.audit.RunReport;
 import org.rimeward.io.BadInputException;
+import org.rimeward.report.RecordedPages;
+import org.rimeward.units.UnitFormat;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -29,15 +31,43 @@ final class AuditShowCommand implements Callable<Integer> {
       + " input hashes, and the crew's recorded actions of the night (crew_actions), as JSON.")
   boolean json;
 
+  enum Format { text, json, html }
+
+  @Option(names = "--format", paramLabel = "text|json|html",
+      description = "text (default), json (as --json), or html: the night's page as 'plan"
+          + " --format html' makes it, with the crew's recorded actions and a footer giving the"
+          + " run, its input hashes and the audit chain's head, to file and check later.")
+  Format format;
+
+  @Option(names = "--output", paramLabel = "FILE",
+      description = "Write to this file (replaced whole, never half-written) instead of the screen.")
+  java.nio.file.Path output;
+
   @Override
   public Integer call() throws Exception {
+    OutputFile.check(output);
+    Format f = format != null ? format : json ? Format.json : Format.text;
+    if (json && format != null && format != Format.json) {
+      throw new BadInputException("--json and --format " + format + ": give one of them");
+    }
     return AuditCommand.guarded(spec, () -> {
-      Loaded l = loadWithActions(where, run);
-      spec.commandLine().getOut().print(json
-          ? CrewReport.withActions(RunReport.json(l.run()), "crew_actions", l.actions(),
-              java.time.ZoneId.of(l.run().zoneId()))
-          : RunReport.text(l.run(), AuditCommand.units(spec))
-              + CrewReport.text(l.run(), l.actions(), java.util.Optional.empty()));
+      String text;
+      if (f == Format.html) {
+        try (AuditStore store = where.openForReading()) {
+          RunRecord rec = store.loadRun(run).orElseThrow(() -> new BadInputException("RUN: no run '"
+              + run + "' in " + where.file() + "; list them with 'rimeward audit list'"));
+          text = RecordedPages.night(rec, store.listActions(rec.night(), java.util.Optional.empty()),
+              store.head(), UnitFormat.of(AuditCommand.units(spec)), RimewardCommand.clock(spec).instant());
+        }
+      } else {
+        Loaded l = loadWithActions(where, run);
+        text = f == Format.json
+            ? CrewReport.withActions(RunReport.json(l.run()), "crew_actions", l.actions(),
+                java.time.ZoneId.of(l.run().zoneId()))
+            : RunReport.text(l.run(), AuditCommand.units(spec))
+                + CrewReport.text(l.run(), l.actions(), java.util.Optional.empty());
+      }
+      OutputFile.write(spec.commandLine().getOut(), output, text, "run " + run + " as " + f);
       return Main.OK;
     });
   }

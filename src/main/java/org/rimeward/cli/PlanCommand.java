@@ -11,9 +11,12 @@ import org.rimeward.io.BadInputException;
 import org.rimeward.plan.NightPlanner;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanCsv;
+import org.rimeward.plan.PlanDocuments;
 import org.rimeward.plan.PlanJson;
 import org.rimeward.plan.PlanRequest;
 import org.rimeward.plan.PlanText;
+import org.rimeward.report.NightPage;
+import org.rimeward.units.UnitFormat;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -32,7 +35,7 @@ import picocli.CommandLine.ParentCommand;
         + " stderr; nothing of the run was kept there).",
         "", Cautions.HELP_FOOTER})
 final class PlanCommand implements Callable<Integer> {
-  enum Format { TEXT, JSON, CSV }
+  enum Format { TEXT, JSON, CSV, HTML }
 
   @ParentCommand RimewardCommand root;
   @Mixin DataFolders folders;
@@ -49,9 +52,15 @@ final class PlanCommand implements Callable<Integer> {
       description = "Date of the evening to plan (default: from the forecast's first step).")
   LocalDate night;
 
-  @Option(names = "--format", paramLabel = "text|json|csv", defaultValue = "text",
-      description = "Output format (default: ${DEFAULT-VALUE}). JSON and CSV are always metric.")
+  @Option(names = "--format", paramLabel = "text|json|csv|html", defaultValue = "text",
+      description = "Output format (default: ${DEFAULT-VALUE}). JSON and CSV are always metric;"
+          + " html is one self-contained page with a chart per block at risk.")
   Format format;
+
+  @Option(names = "--output", paramLabel = "FILE",
+      description = "Write the plan to this file (replaced whole, never half-written) instead of"
+          + " the screen.")
+  Path output;
 
   @Option(names = "--explain", description = "Add every rule that fired, with its numbers.")
   boolean explain;
@@ -86,6 +95,7 @@ final class PlanCommand implements Callable<Integer> {
       throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
           + " records nothing, so it has no file to record in");
     }
+    OutputFile.check(output);
     Instant ranAt = root.clock.instant();
     PlanRequest request = new PlanRequest(farm, forecast, folders.cropProfiles(), folders.rules(),
         night);
@@ -97,12 +107,15 @@ final class PlanCommand implements Callable<Integer> {
         : NightReplan.run(request, readings, now, station, ranAt,
             audit != null ? audit : AuditStore.fileFor(farm));
     var out = root.spec.commandLine().getOut();
-    switch (format) {
-      case JSON -> out.print(PlanJson.toText(plan));
-      case CSV -> out.print(PlanCsv.render(plan));
-      default -> out.print(PlanText.render(plan, root.global.units(), explain));
-    }
-    out.flush();
+    String text = switch (format) {
+      case JSON -> PlanJson.toText(plan);
+      case CSV -> PlanCsv.render(plan);
+      case HTML -> NightPage.html(NightPage.of(PlanDocuments.canonical(plan),
+          UnitFormat.of(root.global.units()), PlanText.explainer(plan, root.global.units()),
+          java.util.Map.of(), null));
+      default -> PlanText.render(plan, root.global.units(), explain);
+    };
+    OutputFile.write(out, output, text, "the plan");
     if (!noAudit) {
       // --farm may name the farm file itself; the trail then sits beside it.
       Path db = audit != null ? audit : AuditStore.fileFor(farm);

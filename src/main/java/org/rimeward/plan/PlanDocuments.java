@@ -26,8 +26,9 @@ public final class PlanDocuments {
 
   /**
    * The document as it reads back from its JSON, numbers rounded as written: what a recorded
-   * run gives its renderers. Tonight's renderers take {@link #of} instead, so that a whole number
-   * of cubic metres is rounded once, from the plan's own figure.
+   * run gives its renderers. The HTML page takes this one, so a recorded run's page is tonight's
+   * page exactly; the text and CSV take {@link #of}, so that a whole number of cubic metres is
+   * rounded once, from the plan's own figure.
    */
   public static PlanDocument canonical(Plan plan) {
     return PlanJson.read(Json.compact(of(plan)));

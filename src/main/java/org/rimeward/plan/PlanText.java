@@ -264,6 +264,22 @@ public final class PlanText {
     return parts.isEmpty() ? "rates reduced, every block protected whole" : String.join("; ", parts);
   }
 
+  /** An action in a line of words, in the display units. */
+  public static String action(PlanDocument.Action a, UnitFormat fmt) {
+    if (a instanceof PlanDocument.Cover c) {
+      return "cover: deploy from " + fmt.clock(c.deployStart()) + ", on by "
+          + fmt.clock(c.deployBy()) + ", remove at " + fmt.clock(c.remove());
+    }
+    PlanDocument.Sprinkle s = (PlanDocument.Sprinkle) a;
+    if (!s.waterGranted()) {
+      return "sprinklers off: no water from " + s.source() + " (" + fmt.rate(s.requiredRateMmH())
+          + " needed)";
+    }
+    return "sprinkle " + fmt.clock(s.start()) + " to " + fmt.clock(s.stop()) + ": "
+        + fmt.rate(s.requiredRateMmH()) + " needed, " + fmt.rate(s.installedRateMmH())
+        + " installed, " + fmt.volume(s.waterM3()) + " from " + s.source();
+  }
+
   /** How a block's status reads in the table. */
   public static String statusWord(PlanDocument.Block b) {
     return switch (b.status()) {

@@ -28,6 +28,8 @@ class LayeringTest {
    */
   static final List<Layer> LAYERS = List.of(
       new Layer("cli", "org.rimeward.cli.."),
+      // The HTML pages and the season: drawn from tonight's plan or from the trail.
+      new Layer("report", "org.rimeward.report.."),
       new Layer("audit", "org.rimeward.audit.."),
       new Layer("plan", "org.rimeward.plan.."),
       new Layer("rules", "org.rimeward.rules.."),

@@ -104,6 +104,16 @@ public final class PlanBenchmark {
     }
     System.out.printf(Locale.ROOT, "  warm cache, %d runs:              min %.2f s, median %.2f s%n",
         runs, min(warm), median(warm));
+    // The same plan with its HTML page written too: what the charts and the template add.
+    List<String> html = new ArrayList<>(cmd);
+    html.addAll(List.of("--format", "html", "--output", work.resolve("demo-night.html").toString()));
+    double[] page = new double[runs];
+    for (int i = 0; i < runs; i++) {
+      page[i] = timed(html, cwd, cache.toString());
+    }
+    System.out.printf(Locale.ROOT, "  warm cache, --format html, %d runs: min %.2f s, median %.2f s"
+        + " (page adds %.2f s at the median)%n", runs, min(page), median(page),
+        median(page) - median(warm));
     int offRuns = Math.max(1, Math.min(3, runs));
     double[] off = new double[offRuns];
     for (int i = 0; i < offRuns; i++) {
