@@ -6,6 +6,8 @@ import java.util.List;
 import java.util.Locale;
 import org.rimeward.audit.AuditStore;
 import org.rimeward.audit.AuditUnavailableException;
+import org.rimeward.audit.TrailEditJournal;
+import org.rimeward.crop.EditJournal;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
@@ -56,10 +58,11 @@ final class ProfileCommand implements Runnable {
 
   /** The footer of the editing commands: where edits are recorded and what each exit code means. */
   static final String EDIT_FOOTER = "Each edit is recorded in the audit trail (<farm>/audit.db, or"
-      + " --audit FILE) unless --no-audit is given. Exit codes: 0 written and recorded; 2 bad"
-      + " input, nothing written; 1 internal error, or the audit trail could not be opened"
-      + " (nothing written), or the edit was written but could not be recorded (the edit stays in"
-      + " the profile file, and the message says so).";
+      + " --audit FILE) before the file changes, unless --no-audit is given; an edit of the same"
+      + " file by another program waits for this one. Exit codes: 0 written and recorded; 2 bad"
+      + " input, nothing written; 1 internal error, or the audit trail could not be written"
+      + " (nothing written), or the edit was written and recorded as pending but not confirmed"
+      + " (the next command confirms it).";
 
   static UnitSystem units(CommandSpec spec) {
     Object root = spec.root().userObject();
@@ -116,43 +119,59 @@ final class ProfileCommand implements Runnable {
         return AuditStore.open(file());
       } catch (AuditUnavailableException e) {
         throw new AuditUnavailableException("the profile was not changed: " + e.getMessage(), e);
+      } catch (org.rimeward.audit.AuditIntegrityException e) {
+        throw new AuditUnavailableException("the profile was not changed: " + e.getMessage()
+            + "; run 'rimeward audit verify'", null);
       }
     }
   }
 
   /**
-   * Records the edits just written in the audit trail, in one transaction, and reports them.
-   * When the trail cannot take them the edits stay in the profile file (it is already written
-   * and correct); the error says so, and the exit code is 1.
+   * Runs one edit with the trail around it: unfinished edits an earlier, killed command left are
+   * settled first; then the edit is recorded as pending before its file changes and confirmed
+   * after. An unusable trail stops the edit before the file is touched.
    *
-   * @param store null when the edit is not to be recorded ({@code --no-audit})
+   * @param edit makes the edit, reporting to the journal it is given, and prints what it did
    * @return the command's exit code
    */
-  static int recorded(List<ProfileEdit> edits, AuditTarget target, AuditStore store,
-      CommandSpec spec) {
+  static int runEdit(CommandSpec spec, AuditTarget target,
+      java.util.function.Function<EditJournal, List<ProfileEdit>> edit) {
     PrintWriter out = spec.commandLine().getOut();
-    if (store == null) {
-      out.println("not recorded in the audit trail (--no-audit)");
+    PrintWriter err = spec.commandLine().getErr();
+    try (AuditStore store = target.open(spec)) {
+      if (store == null) {
+        edit.apply(EditJournal.NONE);
+        out.println("not recorded in the audit trail (--no-audit)");
+        out.flush();
+        return Main.OK;
+      }
+      for (String line : store.settlePendingChanges()) {
+        err.println("rimeward: " + line);
+      }
+      err.flush();
+      TrailEditJournal journal = new TrailEditJournal(store);
+      List<ProfileEdit> edits;
+      try {
+        edits = edit.apply(journal);
+      } catch (AuditUnavailableException e) {
+        out.flush();
+        if (journal.pendingRecorded()) {
+          err.println("rimeward: the edit IS written and recorded in the audit trail as pending,"
+              + " but its confirmation could not be recorded: " + e.getMessage() + " The next"
+              + " profile command or plan confirms it from the file.");
+        } else {
+          err.println("rimeward: the profile was not changed: " + e.getMessage());
+        }
+        err.flush();
+        return Main.INTERNAL_ERROR;
+      }
+      for (ProfileEdit e : edits) {
+        out.printf(Locale.ROOT, "recorded in %s: %s %s by %s: %s%s %s (%s)%n", target.file(),
+            e.at(), e.file(), e.by(), e.crop(), e.variety() == null ? "" : "/" + e.variety(),
+            e.stage() == null ? e.field() : e.stage() + " " + e.field(), e.note());
+      }
       out.flush();
       return Main.OK;
     }
-    try {
-      store.appendProfileEdits(edits);
-    } catch (AuditUnavailableException e) {
-      out.flush();
-      PrintWriter err = spec.commandLine().getErr();
-      err.println("rimeward: the edit IS written to " + edits.get(0).file() + " but was NOT"
-          + " recorded in the audit trail: " + e.getMessage() + " The profile keeps the new value;"
-          + " note the change by hand, or undo it with 'rimeward profile set' once the trail works.");
-      err.flush();
-      return Main.INTERNAL_ERROR;
-    }
-    for (ProfileEdit e : edits) {
-      out.printf(Locale.ROOT, "recorded in %s: %s %s by %s: %s%s %s (%s)%n", target.file(), e.at(),
-          e.file(), e.by(), e.crop(), e.variety() == null ? "" : "/" + e.variety(),
-          e.stage() == null ? e.field() : e.stage() + " " + e.field(), e.note());
-    }
-    out.flush();
-    return Main.OK;
   }
 }

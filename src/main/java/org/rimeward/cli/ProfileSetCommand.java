@@ -3,7 +3,6 @@ package org.rimeward.cli;
 import java.io.PrintWriter;
 import java.time.ZoneId;
 import java.util.List;
-import org.rimeward.audit.AuditStore;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.crop.ProfileEditor;
 import org.rimeward.units.UnitSystem;
@@ -43,8 +42,9 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
     UnitSystem units = ProfileCommand.units(spec);
     ProfileEditor editor = new ProfileEditor(folder.resolve(),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
-    try (AuditStore store = auditTarget.open(spec)) {
-      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note, author.by);
+    return ProfileCommand.runEdit(spec, auditTarget, journal -> {
+      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note,
+          author.by, journal);
       PrintWriter out = spec.commandLine().getOut();
       for (ProfileEdit e : edits) {
         out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
@@ -52,7 +52,7 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
             + ProfileCommand.temp(e.afterC(), units));
       }
       out.println("Written to " + edits.get(0).file());
-      return ProfileCommand.recorded(edits, auditTarget, store, spec);
-    }
+      return edits;
+    });
   }
 }

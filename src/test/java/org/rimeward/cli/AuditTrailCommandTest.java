@@ -1,6 +1,7 @@
 package org.rimeward.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -307,27 +308,23 @@ class AuditTrailCommandTest {
   }
 
   @Test
-  void anEditWrittenButNotRecordedSaysSoAndExitsOne() throws Exception {
+  void anEditTheTrailCannotRecordIsNotWritten() throws Exception {
     try (AuditStore store = AuditStore.open(db)) {
       store.schemaVersion();
     }
-    StringWriter out = new StringWriter();
-    StringWriter err = new StringWriter();
-    CommandLine cl = new CommandLine(new RimewardCommand(CLOCK));
-    CommandLine set = cl.getSubcommands().get("profile").getSubcommands().get("set");
-    set.setOut(new PrintWriter(out, true));
-    set.setErr(new PrintWriter(err, true));
-    ProfileEdit e = new ProfileEdit(AT, "tester", "apple.yaml", "apple", "rome-beauty",
-        "tight-cluster", "t10", -3.889, -3.0, "bud cuts");
-    ProfileCommand.AuditTarget target = new ProfileCommand.AuditTarget();
-    target.audit = db;
-    // A trail opened read-only refuses the append as an unwritable file does.
+    Path profiles = tmp.resolve("crop-profiles");
+    copyTree(Path.of("crop-profiles"), profiles);
+    String before = Files.readString(profiles.resolve("apple.yaml"));
+    org.rimeward.crop.ProfileEditor editor = new org.rimeward.crop.ProfileEditor(profiles, CLOCK);
+    // A trail opened read-only refuses the append as an unwritable file does; the refusal comes
+    // before the file is touched.
     try (AuditStore readOnly = AuditStore.openReadOnly(db)) {
-      int code = ProfileCommand.recorded(List.of(e), target, readOnly, set.getCommandSpec());
-      assertThat(code).isEqualTo(Main.INTERNAL_ERROR);
+      assertThatThrownBy(() -> editor.set("apple", "rome-beauty", "tight-cluster", "-3.0C", null,
+          org.rimeward.units.UnitSystem.METRIC, "bud cuts", "tester",
+          new org.rimeward.audit.TrailEditJournal(readOnly)))
+          .isInstanceOf(org.rimeward.audit.AuditUnavailableException.class);
     }
-    assertThat(err.toString()).contains("the edit IS written to apple.yaml but was NOT recorded")
-        .contains("keeps the new value");
+    assertThat(Files.readString(profiles.resolve("apple.yaml"))).isEqualTo(before);
     try (AuditStore store = AuditStore.openReadOnly(db)) {
       assertThat(store.listProfileEdits()).isEmpty();
     }
