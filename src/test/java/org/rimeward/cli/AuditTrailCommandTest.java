@@ -220,6 +220,50 @@ class AuditTrailCommandTest {
   }
 
   @Test
+  void replayRunsNoRecordedRuleFileItDoesNotAlreadyTrust() throws Exception {
+    assertThat(plan().exitCode()).isZero();
+    RunRecord run = onlyRun();
+    // A forged trail: one recorded rule file gains a rule whose action writes a file.
+    Path marker = tmp.resolve("written-by-a-recorded-rule");
+    List<RecordedInput> inputs = new ArrayList<>();
+    for (RecordedInput in : run.inputs()) {
+      if (in.name().equals("sprinkling/start.drl")) {
+        String drl = new String(in.content(), StandardCharsets.UTF_8);
+        String group = drl.replaceAll("(?s).*?ruleflow-group \"([^\"]+)\".*", "$1");
+        drl += "\nrule \"FORGED-WRITES-A-FILE\"\n  @kind(\"caution\")\n  @explain(\"forged\")\n"
+            + "  ruleflow-group \"" + group + "\"\nwhen\nthen\n  java.nio.file.Files.writeString("
+            + "java.nio.file.Path.of(\"" + marker + "\"), \"ran\");\nend\n";
+        inputs.add(RecordedInput.of(in.kind(), in.name(), drl.getBytes(StandardCharsets.UTF_8)));
+      } else {
+        inputs.add(in);
+      }
+    }
+    Path forged = tmp.resolve("forged.db");
+    try (AuditStore store = AuditStore.open(forged)) {
+      store.appendRun(new RunRecord(run.runId(), run.ranAt(), run.toolVersion(), run.farmName(),
+          run.night(), run.zoneId(), run.policyJson(), inputs, run.blocks(), run.cautions(),
+          run.planJson()));
+    }
+    Cli.Result refused = Cli.run("audit", "replay", run.runId(), "--audit", forged.toString(),
+        "--farm", farm.toString());
+    assertThat(refused.exitCode()).as(refused.toString()).isEqualTo(Main.BAD_INPUT);
+    assertThat(refused.err()).contains("sprinkling/start.drl")
+        .contains("match no rules you already trust").contains("--trust-recorded-rules")
+        .doesNotContain("sprinkling/stop.drl");
+    assertThat(marker).doesNotExist();
+
+    // The genuine trail's rule files are the bundled ones: trusted, replayed as before.
+    assertThat(Cli.run("audit", "replay", run.runId(), "--farm", farm.toString()).exitCode())
+        .isZero();
+
+    // Told to, the replay runs the stranger's code: which is why it is refused by default.
+    Cli.Result trusted = Cli.run("audit", "replay", run.runId(), "--audit", forged.toString(),
+        "--farm", farm.toString(), "--trust-recorded-rules");
+    assertThat(trusted.exitCode()).as(trusted.toString()).isZero();
+    assertThat(marker).exists();
+  }
+
+  @Test
   void replayShowsNoDifferenceUnchangedAndTheChangeWithTodaysRulesOrProfiles() throws Exception {
     assertThat(plan().exitCode()).isZero();
     RunRecord run = onlyRun();
