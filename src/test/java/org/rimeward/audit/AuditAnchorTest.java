@@ -171,4 +171,28 @@ class AuditAnchorTest {
         .hasMessageContaining("not started silently");
     assertThat(db).doesNotExist();
   }
+
+  @Test
+  void exportsCarryTheHeadTheyWereMadeAtAndVerifyChecksIt() throws Exception {
+    String held = head();
+    com.fasterxml.jackson.databind.ObjectMapper json = new com.fasterxml.jackson.databind.ObjectMapper();
+    for (String[] args : new String[][] {{"audit", "show", "r1", "--json"},
+        {"audit", "export", "r1", "--format", "json"}}) {
+      String[] all = java.util.stream.Stream.concat(java.util.Arrays.stream(args),
+          java.util.stream.Stream.of("--farm", farm.toString())).toArray(String[]::new);
+      Cli.Result r = Cli.run(all);
+      assertThat(r.exitCode()).as(r.toString()).isZero();
+      var head = json.readTree(r.out()).path("chain_head");
+      assertThat(head.path("seq").asLong() + ":" + head.path("hash").asText()).isEqualTo(held);
+    }
+    Cli.Result filed = Cli.run("audit", "export", "r1", "--format", "json", "--farm",
+        farm.toString());
+    var h = json.readTree(filed.out()).path("chain_head");
+    try (AuditStore store = AuditStore.open(db)) {
+      store.appendRun(AuditSamples.sampleRun("r3", AT.plusSeconds(1200), NIGHT));
+    }
+    assertThat(Cli.run("audit", "verify", "--farm", farm.toString(), "--head",
+        h.path("seq").asLong() + ":" + h.path("hash").asText()).exitCode())
+        .as("later runs do not disturb an earlier head").isZero();
+  }
 }
