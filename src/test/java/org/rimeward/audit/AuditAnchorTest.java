@@ -72,7 +72,7 @@ class AuditAnchorTest {
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
       for (String t : new String[] {"records", "runs", "run_inputs", "run_blocks", "run_rules",
-          "profile_edits", "file_changes", "schema_steps"}) {
+          "profile_edits", "crew_actions", "file_changes", "schema_steps"}) {
         st.execute("DROP TRIGGER " + t + "_no_delete");
         st.executeUpdate("DELETE FROM " + t);
       }
@@ -80,13 +80,13 @@ class AuditAnchorTest {
     // The schema step in the chain went with the rest, so the version row now stands alone.
     Cli.Result walk = Cli.run("audit", "verify", "--farm", farm.toString());
     assertThat(walk.exitCode()).as(walk.toString()).isEqualTo(4);
-    assertThat(walk.err()).contains("schema version row 2").contains("added outside rimeward");
+    assertThat(walk.err()).contains("schema version row 3").contains("added outside rimeward");
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
       st.executeUpdate("INSERT INTO records VALUES (1, 'schema_steps', '" + "0".repeat(64) + "', '"
-          + ChainHash.of("schema_steps", 1, "0".repeat(64), java.util.List.of(2L, "x", "y"))
+          + ChainHash.of("schema_steps", 1, "0".repeat(64), java.util.List.of(3L, "x", "y"))
           + "')");
-      st.executeUpdate("INSERT INTO schema_steps VALUES (1, 2, 'x', 'y')");
+      st.executeUpdate("INSERT INTO schema_steps VALUES (1, 3, 'x', 'y')");
     }
     assertThat(Cli.run("audit", "verify", "--farm", farm.toString()).exitCode())
         .as("with the schema step forged too, the walk alone passes").isZero();
