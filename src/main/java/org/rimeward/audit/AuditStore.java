@@ -266,6 +266,11 @@ public final class AuditStore implements AutoCloseable {
     return db.read("list its profile edits", () -> new RunReader(db.conn).profileEdits());
   }
 
+  /** Every recorded profile edit with what became of it, oldest first. */
+  public synchronized List<RecordedEdit> listRecordedEdits() {
+    return db.read("list its profile edits", () -> new RunReader(db.conn).profileEditsWithState());
+  }
+
   /** The newest record of the chain, to be held elsewhere (see {@link ChainHead}). */
   public synchronized ChainHead head() {
     return db.read("read its newest record", () -> ChainHead.read(db.conn));

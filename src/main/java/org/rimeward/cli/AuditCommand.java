@@ -18,7 +18,7 @@ import picocli.CommandLine.Spec;
         + " append-only and hash-chained in <farm>/audit.db.",
     subcommands = {AuditListCommand.class, AuditShowCommand.class, AuditExportCommand.class,
         AuditVerifyCommand.class, AuditWhyCommand.class, AuditReplayCommand.class,
-        AuditHeadCommand.class, AuditSealCommand.class},
+        AuditHeadCommand.class, AuditSealCommand.class, AuditEditsCommand.class},
     footer = {"", "Exit codes: 0 done, 1 internal error or audit database unavailable,"
         + " 2 bad input, " + AuditCommand.CHAIN_BROKEN + " audit chain broken (a recorded row was"
         + " changed, removed or added outside rimeward).", "", Cautions.HELP_FOOTER})

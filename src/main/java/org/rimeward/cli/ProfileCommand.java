@@ -1,6 +1,7 @@
 package org.rimeward.cli;
 
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
@@ -34,15 +35,85 @@ final class ProfileCommand implements Runnable {
         "a subcommand is required: list, show, check, new-variety or set");
   }
 
-  /** The {@code --crop-profiles DIR} option every profile command takes. */
+  /**
+   * Which profiles a profile command acts on: {@code --crop-profiles DIR}, else the farm's own
+   * ({@code <farm>/crop-profiles}), else the copy bundled in the jar, which can be read but not
+   * edited. The working folder is never consulted.
+   */
   static final class Folder {
     @Option(names = "--crop-profiles", paramLabel = "DIR",
-        description = "Folder of crop profile files (default: ./crop-profiles if present, else the"
-            + " copy inside the jar, which can be read but not edited).")
+        description = "Folder of crop profile files (default: <farm>/crop-profiles if present,"
+            + " else the copy inside the jar; the first edit copies that into"
+            + " <farm>/crop-profiles).")
     Path dir;
 
+    @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
+        description = "Farm folder whose crop-profiles and audit.db are used (default: the"
+            + " current folder).")
+    Path farm;
+
+    /** The farm folder: the one given, or the folder of the farm file given. */
+    Path farmDir() {
+      return Files.isRegularFile(farm) ? farm.toAbsolutePath().getParent() : farm;
+    }
+
     Path resolve() {
-      return dir != null ? dir : BundledData.folder("crop-profiles");
+      if (dir != null) {
+        return dir;
+      }
+      Path own = farmDir().resolve("crop-profiles");
+      return Files.isDirectory(own) ? own : BundledData.bundled("crop-profiles");
+    }
+
+    /** Where the profiles listed come from, for a header line. */
+    String describe(Path resolved) {
+      return dir == null && !Files.isDirectory(farmDir().resolve("crop-profiles"))
+          ? "the copy bundled with rimeward (the farm "
+          + farmDir() + " has no crop-profiles folder)" : resolved.toString();
+    }
+
+    /**
+     * The folder an edit writes to. A farm without profiles of its own gets a copy of the bundled
+     * ones first, in {@code <farm>/crop-profiles}, which the plan then reads; the copy is said.
+     */
+    Path resolveForEdit(PrintWriter out) {
+      Path p = resolve();
+      if (dir != null || Files.isDirectory(farmDir().resolve("crop-profiles"))) {
+        return p;
+      }
+      Path farmDir = farmDir();
+      if (!Files.isRegularFile(farmDir.resolve("farm.yaml"))) {
+        throw new BadInputException("--farm: " + farmDir.toAbsolutePath() + " has no farm.yaml;"
+            + " run this in the farm folder, give --farm DIR, or name the profiles to edit with"
+            + " --crop-profiles DIR");
+      }
+      Path target = farmDir.resolve("crop-profiles");
+      Path tmp = farmDir.resolve(".crop-profiles.copying");
+      try {
+        if (Files.exists(tmp)) {
+          try (var s = Files.walk(tmp)) {
+            for (Path q : s.sorted(java.util.Comparator.reverseOrder()).toList()) {
+              Files.delete(q);
+            }
+          }
+        }
+        Files.createDirectory(tmp);
+        try (var s = Files.list(p)) {
+          for (Path q : s.filter(q -> q.getFileName().toString().endsWith(".yaml")).toList()) {
+            Files.copy(q, tmp.resolve(q.getFileName().toString()));
+          }
+        }
+        // Whole or not at all: a half-copied folder would be read by tonight's plan.
+        Files.move(tmp, target, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+      } catch (java.nio.file.FileAlreadyExistsException e) {
+        return target;
+      } catch (java.io.IOException e) {
+        throw new BadInputException(target + ": cannot copy the bundled crop profiles there ("
+            + e.getMessage() + "); check that the farm folder can be written", e);
+      }
+      out.println("The farm had no crop profiles of its own: copied the bundled ones into "
+          + target + ". Edits go there, and the plan reads them from there.");
+      return target;
     }
   }
 
@@ -88,9 +159,8 @@ final class ProfileCommand implements Runnable {
    * with {@code --no-audit}.
    */
   static final class AuditTarget {
-    @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-        description = "Farm folder whose audit.db records the edit (default: the current folder).")
-    Path farm;
+    /** The farm folder, from the command's {@link Folder}; set before use. */
+    Path farm = Path.of(".");
 
     @Option(names = "--audit", paramLabel = "FILE",
         description = "Audit database to record the edit in instead of <farm>/audit.db.")

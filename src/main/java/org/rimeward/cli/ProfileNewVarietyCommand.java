@@ -55,7 +55,9 @@ final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<In
       }
       fromVariety = fv[1];
     }
-    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+    auditTarget.farm = folder.farm;
+    ProfileEditor editor = new ProfileEditor(
+        folder.resolveForEdit(spec.commandLine().getOut()),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
     String fromV = fromVariety;
     return ProfileCommand.runEdit(spec, auditTarget, journal -> {

@@ -40,7 +40,9 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
   public Integer call() {
     String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
     UnitSystem units = ProfileCommand.units(spec);
-    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+    auditTarget.farm = folder.farm;
+    ProfileEditor editor = new ProfileEditor(
+        folder.resolveForEdit(spec.commandLine().getOut()),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
     return ProfileCommand.runEdit(spec, auditTarget, journal -> {
       List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note,

@@ -48,8 +48,9 @@ class AuditCommandTest {
     assertThat(r.exitCode()).as(r.toString()).isZero();
     String[] lines = r.out().split("\n");
     assertThat(lines).hasSize(3);
-    assertThat(lines[0]).startsWith("RUN").contains("NIGHT");
-    assertThat(lines[1]).startsWith(NEW).contains("2026-04-15 18:15:03").contains("2026-04-15")
+    assertThat(lines[0]).startsWith("RUN").contains("RECORDED").contains("NIGHT");
+    // Recorded 18:15 UTC: shown in the farm's own zone, as show and why do.
+    assertThat(lines[1]).startsWith(NEW).contains("2026-04-15 20:15 CEST").contains("2026-04-15")
         .endsWith("2 of 3 blocks");
     assertThat(lines[2]).startsWith(OLD);
 
