@@ -69,6 +69,13 @@ public final class AuditStore implements AutoCloseable {
 
   /** As {@link #open(Path, Duration)}, stamping what the store itself records with {@code clock}. */
   public static AuditStore open(Path dbFile, Duration busyTimeout, Clock clock) {
+    Path seals = Seals.fileFor(dbFile);
+    if (!Files.exists(dbFile) && Files.exists(seals)) {
+      throw new AuditUnavailableException("audit database " + dbFile + " is missing, but " + seals
+          + " beside it shows this farm kept a trail there. A new trail is not started silently:"
+          + " restore the file from a backup; or, to start a new trail on purpose, move " + seals
+          + " aside and keep it with the old trail's records. Nothing was recorded.");
+    }
     return new AuditStore(TrailConnection.openForWriting(dbFile, busyTimeout, clock));
   }
 
@@ -85,6 +92,10 @@ public final class AuditStore implements AutoCloseable {
     AuditStore store = new AuditStore(
         TrailConnection.openForReading(dbFile, DEFAULT_BUSY_TIMEOUT, Clock.systemUTC()));
     try {
+      store.db.read("check its schema versions", () -> {
+        Schema.checkVersionRows(store.db.conn, dbFile);
+        return null;
+      });
       int version = store.schemaVersion();
       if (version != Schema.latestVersion()) {
         throw new AuditUnavailableException("audit database " + dbFile + " has schema version "
@@ -255,6 +266,11 @@ public final class AuditStore implements AutoCloseable {
     return db.read("list its profile edits", () -> new RunReader(db.conn).profileEdits());
   }
 
+  /** Every recorded profile edit with what became of it, oldest first. */
+  public synchronized List<RecordedEdit> listRecordedEdits() {
+    return db.read("list its profile edits", () -> new RunReader(db.conn).profileEditsWithState());
+  }
+
   /** The newest record of the chain, to be held elsewhere (see {@link ChainHead}). */
   public synchronized ChainHead head() {
     return db.read("read its newest record", () -> ChainHead.read(db.conn));
@@ -271,6 +287,92 @@ public final class AuditStore implements AutoCloseable {
       try (ChainVerifier v = new ChainVerifier(db.conn)) {
         return v.run();
       }
+    });
+  }
+
+  /**
+   * As {@link #verify()}, and then whether the trail still holds {@code held}: a head written
+   * down elsewhere earlier. A trail rebuilt with recomputed hashes, or cut short, fails here.
+   */
+  public synchronized VerifyResult verify(ChainHead held) {
+    return db.inReadTransaction("verify it", () -> {
+      try (ChainVerifier v = new ChainVerifier(db.conn)) {
+        VerifyResult r = v.run();
+        if (!r.intact()) {
+          return r;
+        }
+        Optional<String> differs = v.holds(held);
+        return differs.isEmpty() ? r : VerifyResult.broken(r.recordCount(), r.headHash(),
+            held.seq(), "the head " + held + " given with --head does not hold: " + differs.get());
+      }
+    });
+  }
+
+  /**
+   * Records a crop-file change as pending, with its edits, before the file is written; returns
+   * the pending record's sequence number.
+   */
+  public synchronized long recordPendingChange(org.rimeward.crop.PendingChange change) {
+    return db.inImmediateTransaction("record the profile edit of " + change.file(),
+        () -> new FileChanges(db.conn, db.clock).recordPending(change));
+  }
+
+  /** Records the outcome of the pending change at {@code pendingSeq}. */
+  synchronized void settleChange(long pendingSeq, FileChanges.State state, String detail) {
+    db.inImmediateTransaction("record the outcome of change " + pendingSeq, () -> {
+      FileChanges fc = new FileChanges(db.conn, db.clock);
+      FileChanges.Unsettled p = fc.pendingAt(pendingSeq).orElseThrow(() ->
+          new IllegalStateException("no pending change at record " + pendingSeq));
+      if (!fc.settled(pendingSeq)) {
+        fc.recordOutcome(p, state, detail);
+      }
+      return null;
+    });
+  }
+
+  /**
+   * Settles every pending crop-file change a killed or failed command left behind, by what its
+   * file holds now, and returns a line for each for the user. Changes whose file is locked by an
+   * edit still running are left for later.
+   */
+  public synchronized List<String> settlePendingChanges() {
+    if (db.readOnly) {
+      return unsettledChanges();
+    }
+    List<FileChanges.Unsettled> open = db.read("look for unfinished profile edits",
+        () -> new FileChanges(db.conn, db.clock).unsettled());
+    List<String> lines = new java.util.ArrayList<>();
+    for (FileChanges.Unsettled p : open) {
+      Optional<FileChanges.Outcome> o = FileChanges.inspect(p);
+      if (o.isEmpty()) {
+        continue;
+      }
+      boolean recorded = db.inImmediateTransaction("settle profile edit " + p.seq(), () -> {
+        FileChanges fc = new FileChanges(db.conn, db.clock);
+        if (fc.settled(p.seq())) {
+          return false;
+        }
+        fc.recordOutcome(p, o.get().state(), o.get().detail());
+        return true;
+      });
+      if (recorded) {
+        lines.add("profile edit of " + p.file() + " recorded at " + p.at() + " (record " + p.seq()
+            + "): " + o.get().state().word + ": " + o.get().detail());
+      }
+    }
+    return lines;
+  }
+
+  /** Pending crop-file changes no row settles yet, one line each; reads only. */
+  public synchronized List<String> unsettledChanges() {
+    return db.read("look for unfinished profile edits", () -> {
+      List<String> lines = new java.util.ArrayList<>();
+      for (FileChanges.Unsettled p : new FileChanges(db.conn, db.clock).unsettled()) {
+        lines.add("profile edit of " + p.file() + " recorded at " + p.at() + " (record " + p.seq()
+            + ") is pending: the command stopped before confirming it; the next profile edit or"
+            + " plan settles it");
+      }
+      return lines;
     });
   }
 

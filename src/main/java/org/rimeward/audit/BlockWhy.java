@@ -176,7 +176,34 @@ public final class BlockWhy {
     return Json.pretty(root);
   }
 
+  /**
+   * The recorded profile edits, made before this run and reaching their file, of the crop,
+   * variety and stage the block's values came from: what changed the numbers this run used.
+   */
+  public List<RecordedEdit> editsThatShaped(List<RecordedEdit> all) {
+    List<RecordedEdit> out = new ArrayList<>();
+    for (RecordedEdit r : all) {
+      var e = r.edit();
+      if (r.applied() && !e.at().isAfter(run.ranAt()) && e.crop().equals(decision.crop())
+          && decision.variety() != null && decision.variety().equals(e.variety())
+          && (e.stage() == null || e.stage().equals(decision.stage()))) {
+        out.add(r);
+      }
+    }
+    return out;
+  }
+
   public String text(UnitSystem units) {
+    return text(units, List.of());
+  }
+
+  /**
+   * What a person reads: the decision, the profile values and their source, the rules in firing
+   * order with their explanations, the forecast lines used, the edits that changed the values,
+   * and the inputs that mattered. The values each rule saw, and every input's hash, are in
+   * {@link #json()}.
+   */
+  public String text(UnitSystem units, List<RecordedEdit> edits) {
     UnitFormat fmt = UnitFormat.of(units);
     ZoneId zone = ZoneId.of(run.zoneId());
     StringBuilder s = new StringBuilder();
@@ -209,9 +236,6 @@ public final class BlockWhy {
           st.kind().isEmpty() ? "rule" : st.kind(), st.farmWide()
               ? ", farm-wide, about " + waterSource : ""));
       s.append("     ").append(st.explanation()).append('\n');
-      if (st.values().size() > 0) {
-        s.append("     saw: ").append(values(st.values())).append('\n');
-      }
     }
     if (steps.isEmpty()) {
       s.append("  none recorded\n");
@@ -221,29 +245,35 @@ public final class BlockWhy {
       forecastLines.forEach((n, text) -> s.append(String.format(Locale.ROOT, "  line %d: %s%n", n,
           text == null ? "(not in the recorded forecast)" : text)));
     });
-    s.append("\nInputs (SHA-256)\n");
+    if (!edits.isEmpty()) {
+      s.append("\nProfile edits that changed these values:\n");
+      for (RecordedEdit r : edits) {
+        var e = r.edit();
+        s.append("  ").append(fmt.stamp(e.at().atZone(zone).toOffsetDateTime())).append(" by ")
+            .append(e.by()).append(": ").append(e.field().equals("variety") ? "added the variety"
+                : e.field().toUpperCase(Locale.ROOT) + " " + temp(fmt, e.beforeC()) + " → "
+                    + temp(fmt, e.afterC()))
+            .append(" (").append(e.note()).append(")\n");
+      }
+    }
+    s.append("\nInputs that mattered (SHA-256; every input with --json)\n");
     for (RecordedInput in : run.inputs()) {
-      s.append(String.format(Locale.ROOT, "  %-12s %s  %s%n", RunReport.kindName(in.kind()),
-          in.sha256(), in.name()));
+      boolean mattered = in.kind() == InputKind.FARM || in.kind() == InputKind.FORECAST
+          || profileFile().map(f -> f.name().equals(in.name())).orElse(false);
+      if (mattered) {
+        s.append(String.format(Locale.ROOT, "  %-12s %s  %s%n", RunReport.kindName(in.kind()),
+            in.sha256().substring(0, 12), in.name()));
+      }
+    }
+    long rules = run.inputs().stream().filter(i -> i.kind() == InputKind.RULE).count();
+    if (rules > 0) {
+      s.append(String.format(Locale.ROOT, "  and %d rule file%s%n", rules, rules == 1 ? "" : "s"));
     }
     return s.toString();
   }
 
-  private static String values(JsonNode values) {
-    List<String> parts = new ArrayList<>();
-    for (Iterator<Map.Entry<String, JsonNode>> it = values.fields(); it.hasNext();) {
-      Map.Entry<String, JsonNode> e = it.next();
-      JsonNode v = e.getValue();
-      String shown;
-      if (v.isObject() && v.has("forecast_line")) {
-        shown = v.path("value").asText() + " at " + v.path("at").asText() + " (forecast line "
-            + v.path("forecast_line").asText() + ")";
-      } else {
-        shown = v.isTextual() ? v.asText() : v.toString();
-      }
-      parts.add(e.getKey() + " = " + shown);
-    }
-    return String.join("; ", parts);
+  private static String temp(UnitFormat fmt, Double c) {
+    return c == null ? "none" : fmt.temp(c);
   }
 
   private static String action(PlanDocument.Action a) {

@@ -32,7 +32,13 @@ final class RunReader {
   }
 
   List<RunSummary> list(Optional<LocalDate> since, Optional<String> blockId) throws SQLException {
-    String sql = "SELECT run_id, ran_at, night, farm_name, block_count, protection_count FROM runs"
+    // Blocks that needed protection: those the plan protected and those it could not (short of
+    // water, unprotected), which the recorded protection_count leaves out.
+    String sql = "SELECT run_id, ran_at, night, farm_name, zone_id, block_count, protection_count,"
+        + " (SELECT count(*) FROM run_blocks b WHERE b.run_id = runs.run_id AND (b.protection_needed"
+        + " = 1 OR b.status IN ('short-of-water', 'unprotected', 'partly-protected'))) AS needing,"
+        + " (SELECT count(*) FROM run_blocks b WHERE b.run_id = runs.run_id AND b.status IN"
+        + " ('short-of-water', 'unprotected')) AS unprotected FROM runs"
         + " WHERE (?1 IS NULL OR night >= ?1) AND (?2 IS NULL OR EXISTS (SELECT 1 FROM run_blocks b"
         + " WHERE b.run_id = runs.run_id AND b.block_id = ?2)) ORDER BY ran_at DESC, seq DESC";
     try (PreparedStatement ps = conn.prepareStatement(sql)) {
@@ -43,7 +49,8 @@ final class RunReader {
         while (rs.next()) {
           out.add(new RunSummary(rs.getString("run_id"), Instant.parse(rs.getString("ran_at")),
               LocalDate.parse(rs.getString("night")), rs.getString("farm_name"),
-              rs.getInt("block_count"), rs.getInt("protection_count")));
+              rs.getInt("block_count"), Math.max(rs.getInt("protection_count"),
+                  rs.getInt("needing")), rs.getInt("unprotected"), rs.getString("zone_id")));
         }
       }
       return out;
@@ -82,9 +89,7 @@ final class RunReader {
   List<ProfileEdit> profileEdits() throws SQLException {
     List<ProfileEdit> out = new ArrayList<>();
     for (StoredRow r : StoredRow.select(conn, Table.PROFILE_EDITS, "1 = 1 ORDER BY t.seq")) {
-      out.add(new ProfileEdit(Instant.parse(r.text("at")), r.text("edited_by"), r.text("file"),
-          r.text("crop"), r.text("variety"), r.text("stage"), r.text("field"), r.real("before_c"),
-          r.real("after_c"), r.text("note")));
+      out.add(edit(r));
     }
     return out;
   }
@@ -102,6 +107,44 @@ final class RunReader {
           Optional.ofNullable(r.text("warning"))));
     }
     return out;
+  }
+
+  /**
+   * Every profile edit with what became of it, oldest first. An edit belongs to the pending change
+   * committed with it (the first change row after it, which counts its edits); the change's
+   * settling row says whether it reached the file.
+   */
+  List<RecordedEdit> profileEditsWithState() throws SQLException {
+    List<StoredRow> changes = StoredRow.select(conn, Table.FILE_CHANGES, "1 = 1 ORDER BY t.seq");
+    Map<Long, String> outcome = new HashMap<>();
+    for (StoredRow c : changes) {
+      if (c.integer("settles_seq") != null) {
+        outcome.put(c.integer("settles_seq"), c.text("state"));
+      }
+    }
+    List<RecordedEdit> out = new ArrayList<>();
+    int next = 0;
+    for (StoredRow r : StoredRow.select(conn, Table.PROFILE_EDITS, "1 = 1 ORDER BY t.seq")) {
+      while (next < changes.size() && (changes.get(next).seq() < r.seq()
+          || changes.get(next).integer("settles_seq") != null)) {
+        next++;
+      }
+      String state = "recorded";
+      if (next < changes.size()) {
+        StoredRow pending = changes.get(next);
+        if (pending.seq() - pending.integer("edit_count") <= r.seq()) {
+          state = outcome.getOrDefault(pending.seq(), "pending");
+        }
+      }
+      out.add(new RecordedEdit(r.seq(), edit(r), state));
+    }
+    return out;
+  }
+
+  private static ProfileEdit edit(StoredRow r) {
+    return new ProfileEdit(Instant.parse(r.text("at")), r.text("edited_by"), r.text("file"),
+        r.text("crop"), r.text("variety"), r.text("stage"), r.text("field"), r.real("before_c"),
+        r.real("after_c"), r.text("note"));
   }
 
   /** The whole run with this exact id, which must exist. */

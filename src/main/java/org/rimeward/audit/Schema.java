@@ -66,7 +66,21 @@ final class Schema {
     CREW_ACTIONS("crew_actions", List.of(), col("at", Type.TEXT), col("recorded_at", Type.TEXT),
         col("night", Type.TEXT), col("block_id", Type.TEXT), col("kind", Type.TEXT),
         col("done_by", Type.TEXT), col("note", Type.TEXT), nullable("advised_run_id", Type.TEXT),
-        nullable("warning", Type.TEXT));
+        nullable("warning", Type.TEXT)),
+    /**
+     * A change to a crop file, recorded as {@code pending} (with its edits, in one transaction)
+     * before the file is written; a later row names the outcome and the pending row it settles.
+     */
+    FILE_CHANGES("file_changes", List.of(), col("at", Type.TEXT), col("file", Type.TEXT),
+        col("state", Type.TEXT), nullable("settles_seq", Type.INTEGER),
+        col("sha256_before", Type.TEXT), col("sha256_after", Type.TEXT),
+        col("edit_count", Type.INTEGER), nullable("detail", Type.TEXT)),
+    /**
+     * Each schema step from version 3 on, in the chain: a version row in schema_version without
+     * its chained step was added by hand.
+     */
+    SCHEMA_STEPS("schema_steps", List.of("UNIQUE (version)"), col("version", Type.INTEGER),
+        col("applied_at", Type.TEXT), col("description", Type.TEXT));
 
     final String sql;
     final List<String> constraints;
@@ -124,7 +138,9 @@ final class Schema {
   /** Add a step at the end; never change one that has been released. */
   static final List<Migration> MIGRATIONS = List.of(
       new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()),
-      new Migration(2, "what the crew did: sprinklers and covers on and off", v2()));
+      new Migration(2, "what the crew did: sprinklers and covers on and off", v2()),
+      new Migration(3, "crop-file changes recorded before they are written; schema steps chained",
+          v3()));
 
   static int latestVersion() {
     return MIGRATIONS.get(MIGRATIONS.size() - 1).version();
@@ -156,6 +172,16 @@ final class Schema {
     return List.copyOf(s);
   }
 
+  private static List<String> v3() {
+    List<String> s = new ArrayList<>();
+    s.add(Table.FILE_CHANGES.createSql());
+    s.add("CREATE INDEX file_changes_by_settled ON file_changes (settles_seq)");
+    s.add(Table.SCHEMA_STEPS.createSql());
+    s.addAll(appendOnly("file_changes"));
+    s.addAll(appendOnly("schema_steps"));
+    return List.copyOf(s);
+  }
+
   /**
    * Defence in depth: the tool never changes a recorded row, and neither may a stray UPDATE or
    * DELETE. Every new audit table gets these in the step that creates it.
@@ -176,6 +202,7 @@ final class Schema {
       st.execute("CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY,"
           + " applied_at TEXT NOT NULL, description TEXT NOT NULL)");
       int current = currentVersion(c);
+      checkVersionRows(c, file);
       if (current > latestVersion()) {
         throw new AuditUnavailableException("audit database " + file + " has schema version "
             + current + ", newer than this rimeward understands (" + latestVersion()
@@ -195,18 +222,54 @@ final class Schema {
           ps.setString(3, m.description());
           ps.executeUpdate();
         }
+        if (m.version() >= 3) {
+          try (ChainWriter w = new ChainWriter(c)) {
+            w.append(Table.SCHEMA_STEPS, (long) m.version(), clock.instant().toString(),
+                m.description());
+          }
+        }
+      }
+    }
+  }
+
+  /**
+   * Every version row from 3 on must have its step in the chain: rimeward writes both in one
+   * transaction. A row without one was added by hand, to make a reader refuse the trail as "too
+   * new" or to hide a table; that is tampering, not a newer rimeward.
+   *
+   * @throws AuditIntegrityException naming the version row
+   */
+  static void checkVersionRows(Connection c, Path file) throws SQLException {
+    boolean chained = hasTable(c, Table.SCHEMA_STEPS.sql);
+    try (Statement st = c.createStatement();
+        ResultSet rs = st.executeQuery("SELECT version FROM schema_version WHERE version >= 3"
+            + " ORDER BY version")) {
+      while (rs.next()) {
+        int v = rs.getInt(1);
+        if (!chained || StoredRow.select(c, Table.SCHEMA_STEPS, "t.version = ?", (long) v)
+            .isEmpty()) {
+          throw new AuditIntegrityException("audit database " + file + ": schema version row " + v
+              + " is not matched by a schema step in the chain: it was added outside rimeward."
+              + " Keep a copy of the file as it is, for inspection");
+        }
+      }
+    }
+  }
+
+  private static boolean hasTable(Connection c, String name) throws SQLException {
+    try (PreparedStatement ps = c.prepareStatement(
+        "SELECT count(*) FROM sqlite_master WHERE type = 'table' AND name = ?")) {
+      ps.setString(1, name);
+      try (ResultSet rs = ps.executeQuery()) {
+        return rs.next() && rs.getInt(1) > 0;
       }
     }
   }
 
   /** The schema version of an open file; 0 for a file rimeward never wrote. */
   static int currentVersion(Connection c) throws SQLException {
-    try (Statement st = c.createStatement();
-        ResultSet rs = st.executeQuery(
-            "SELECT count(*) FROM sqlite_master WHERE type = 'table' AND name = 'schema_version'")) {
-      if (!rs.next() || rs.getInt(1) == 0) {
-        return 0;
-      }
+    if (!hasTable(c, "schema_version")) {
+      return 0;
     }
     try (Statement st = c.createStatement();
         ResultSet rs = st.executeQuery("SELECT coalesce(max(version), 0) FROM schema_version")) {

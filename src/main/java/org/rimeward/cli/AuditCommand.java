@@ -17,7 +17,9 @@ import picocli.CommandLine.Spec;
     description = "Look into the audit trail: every nightly plan and crop-profile edit, recorded"
         + " append-only and hash-chained in <farm>/audit.db.",
     subcommands = {AuditListCommand.class, AuditShowCommand.class, AuditExportCommand.class,
-        AuditVerifyCommand.class, AuditWhyCommand.class, AuditReplayCommand.class, AuditSeasonCommand.class},
+        AuditVerifyCommand.class, AuditWhyCommand.class, AuditReplayCommand.class,
+        AuditHeadCommand.class, AuditSealCommand.class, AuditEditsCommand.class,
+        AuditSeasonCommand.class},
     footer = {"", "Exit codes: 0 done, 1 internal error or audit database unavailable,"
         + " 2 bad input, " + AuditCommand.CHAIN_BROKEN + " audit chain broken (a recorded row was"
         + " changed, removed or added outside rimeward).", "", Cautions.HELP_FOOTER})

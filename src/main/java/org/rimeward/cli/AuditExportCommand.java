@@ -3,7 +3,6 @@ package org.rimeward.cli;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
-import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
 import org.rimeward.audit.RunReport;
 import org.rimeward.io.AtomicFiles;
@@ -43,8 +42,7 @@ final class AuditExportCommand implements Callable<Integer> {
       AuditShowCommand.Loaded l = AuditShowCommand.loadWithActions(where, run);
       RunRecord rec = l.run();
       String text = format == Format.csv ? RunReport.csv(rec, l.actions())
-          : CrewReport.withActions(RunReport.json(rec), "crew_actions", l.actions(),
-              java.time.ZoneId.of(rec.zoneId()));
+          : AuditShowCommand.json(l);
       if (output == null) {
         spec.commandLine().getOut().print(text);
         return Main.OK;

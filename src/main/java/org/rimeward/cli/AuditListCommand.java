@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
 import java.time.LocalDate;
-import java.time.ZoneOffset;
 import java.time.format.DateTimeFormatter;
 import java.util.List;
 import java.util.Locale;
@@ -24,8 +23,8 @@ import picocli.CommandLine.Spec;
     description = "List recorded runs, newest first: id, time recorded, night, and how many blocks"
         + " needed protection.")
 final class AuditListCommand implements Callable<Integer> {
-  private static final DateTimeFormatter UTC =
-      DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm:ss", Locale.ROOT).withZone(ZoneOffset.UTC);
+  private static final DateTimeFormatter LOCAL =
+      DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm z", Locale.ROOT);
 
   @Spec CommandSpec spec;
   @Mixin AuditCommand.Location where = new AuditCommand.Location();
@@ -59,6 +58,7 @@ final class AuditListCommand implements Callable<Integer> {
           n.put("farm", r.farmName());
           n.put("blocks", r.blockCount());
           n.put("blocks_needing_protection", r.protectionNeededCount());
+          n.put("blocks_unprotected", r.unprotectedCount());
         }
         out.print(org.rimeward.io.Json.pretty(arr));
         return Main.OK;
@@ -69,11 +69,17 @@ final class AuditListCommand implements Callable<Integer> {
         return Main.OK;
       }
       int idWidth = Math.max(3, runs.stream().mapToInt(r -> r.runId().length()).max().orElse(3));
-      String row = "%-" + idWidth + "s  %-19s  %-10s  %s%n";
-      out.printf(Locale.ROOT, row, "RUN", "RECORDED (UTC)", "NIGHT", "PROTECTION NEEDED");
-      for (RunSummary r : runs) {
-        out.printf(Locale.ROOT, row, r.runId(), UTC.format(r.ranAt()), r.night(),
-            r.protectionNeededCount() + " of " + r.blockCount() + " blocks");
+      List<String> times = runs.stream().map(r -> LOCAL.format(r.ranAt().atZone(
+          java.time.ZoneId.of(r.zoneId())))).toList();
+      int timeWidth = Math.max(8, times.stream().mapToInt(String::length).max().orElse(8));
+      String row = "%-" + idWidth + "s  %-" + timeWidth + "s  %-10s  %s%n";
+      out.printf(Locale.ROOT, row, "RUN", "RECORDED", "NIGHT", "NEEDED PROTECTION");
+      for (int i = 0; i < runs.size(); i++) {
+        RunSummary r = runs.get(i);
+        out.printf(Locale.ROOT, row, r.runId(), times.get(i), r.night(),
+            r.protectionNeededCount() + " of " + r.blockCount() + " blocks"
+                + (r.unprotectedCount() == 0 ? "" : " (" + r.unprotectedCount()
+                    + " left unprotected)"));
       }
       return Main.OK;
     });

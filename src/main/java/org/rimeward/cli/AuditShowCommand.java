@@ -1,7 +1,11 @@
 package org.rimeward.cli;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.concurrent.Callable;
 import org.rimeward.audit.AuditStore;
+import org.rimeward.audit.ChainHead;
 import org.rimeward.audit.CrewAction;
 import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
@@ -62,8 +66,7 @@ final class AuditShowCommand implements Callable<Integer> {
       } else {
         Loaded l = loadWithActions(where, run);
         text = f == Format.json
-            ? CrewReport.withActions(RunReport.json(l.run()), "crew_actions", l.actions(),
-                java.time.ZoneId.of(l.run().zoneId()))
+            ? json(l)
             : RunReport.text(l.run(), AuditCommand.units(spec))
                 + CrewReport.text(l.run(), l.actions(), java.util.Optional.empty());
       }
@@ -72,16 +75,47 @@ final class AuditShowCommand implements Callable<Integer> {
     });
   }
 
-  /** A run and the crew's actions of its night. */
-  record Loaded(RunRecord run, java.util.List<CrewAction> actions) {}
+  /**
+   * A run, the crew's actions of its night, and the trail's head when they were read, from one
+   * open of the trail.
+   */
+  record Loaded(RunRecord run, java.util.List<CrewAction> actions, ChainHead head) {}
 
   static Loaded loadWithActions(AuditCommand.Location where, String run) {
     try (AuditStore store = where.openForReading()) {
+      ChainHead head = store.head();
       RunRecord rec = store.loadRun(run).orElseThrow(() -> new BadInputException("RUN: no run '"
           + run + "' in " + where.file() + "; list them with 'rimeward audit list'"));
-      return new Loaded(rec, store.listActions(rec.night(), java.util.Optional.empty()));
+      return new Loaded(rec, store.listActions(rec.night(), java.util.Optional.empty()), head);
     }
   }
+
+  /** The run's JSON document, as 'show --json' and 'export --format json' give it. */
+  static String json(Loaded l) {
+    return withHead(CrewReport.withActions(RunReport.json(l.run()), "crew_actions", l.actions(),
+        java.time.ZoneId.of(l.run().zoneId())), l.head());
+  }
+
+  /**
+   * The document with {@code chain_head}: the newest record of the trail when it was made, so
+   * whoever files the export holds a head that 'audit verify --head' checks later.
+   */
+  static String withHead(String json, ChainHead chainHead) {
+    try {
+      ObjectNode doc = (ObjectNode) JSON.readTree(json);
+      ObjectNode out = JSON.createObjectNode();
+      out.set("run_id", doc.remove("run_id"));
+      ObjectNode head = out.putObject("chain_head");
+      head.put("seq", chainHead.seq());
+      head.put("hash", chainHead.hash());
+      out.setAll(doc);
+      return JSON.writeValueAsString(out) + "\n";
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+
+  private static final ObjectMapper JSON = new ObjectMapper();
 
   static RunRecord load(AuditCommand.Location where, String run) {
     try (AuditStore store = where.openForReading()) {

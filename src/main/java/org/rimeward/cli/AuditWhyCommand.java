@@ -1,7 +1,6 @@
 package org.rimeward.cli;
 
 import java.time.LocalDate;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
@@ -10,7 +9,6 @@ import org.rimeward.audit.BlockWhy;
 import org.rimeward.audit.CrewAction;
 import org.rimeward.audit.CrewReport;
 import org.rimeward.audit.RunRecord;
-import org.rimeward.audit.RunSummary;
 import org.rimeward.io.BadInputException;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
@@ -26,7 +24,9 @@ import picocli.CommandLine.Spec;
         + " fired for it in firing order with the numbers each saw, the farm-wide rules about its"
         + " water source, the forecast lines and crop-profile values those numbers came from, and"
         + " the hash of every input.",
-        "Without --night or --run: the newest night recorded for the block, and its latest run."})
+        "Without --night or --run: the latest run that planned the block.",
+        "Also names the recorded profile edits that changed the values used. --json adds the"
+            + " values each rule saw and the hash of every input."})
 final class AuditWhyCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin AuditCommand.Location where = new AuditCommand.Location();
@@ -55,14 +55,16 @@ final class AuditWhyCommand implements Callable<Integer> {
     return AuditCommand.guarded(spec, () -> {
       RunRecord rec;
       List<CrewAction> done;
+      List<org.rimeward.audit.RecordedEdit> edits;
       try (AuditStore store = where.openForReading()) {
         rec = find(store);
         done = store.listActions(rec.night(), Optional.of(block));
+        edits = store.listRecordedEdits();
       }
       BlockWhy why = BlockWhy.of(rec, block);
       spec.commandLine().getOut().print(json
           ? CrewReport.withActions(why.json(), "done", done, java.time.ZoneId.of(rec.zoneId()))
-          : why.text(AuditCommand.units(spec)) + CrewReport.text(rec, done, Optional.of(block)));
+          : why.text(AuditCommand.units(spec), why.editsThatShaped(edits)) + CrewReport.text(rec, done, Optional.of(block)));
       return Main.OK;
     });
   }
@@ -72,13 +74,16 @@ final class AuditWhyCommand implements Callable<Integer> {
       return store.loadRun(which.run).orElseThrow(() -> new BadInputException("--run: no run '"
           + which.run + "' in " + where.file() + "; list them with 'rimeward audit list'"));
     }
-    LocalDate night = which != null ? which.night : store.listRuns(Optional.empty(),
-        Optional.of(block)).stream().map(RunSummary::night).max(Comparator.naturalOrder())
-        .orElseThrow(() -> new BadInputException("BLOCK: no recorded run planned block '" + block
-            + "' in " + where.file() + "; check the block id, or list runs with 'rimeward audit"
-            + " list'"));
-    return store.latestRunFor(block, night).orElseThrow(() -> new BadInputException("--night: no"
-        + " recorded run planned block '" + block + "' for the night of " + night + " in "
-        + where.file() + "; list runs with 'rimeward audit list --block " + block + "'"));
+    if (which != null && which.night != null) {
+      return store.latestRunFor(block, which.night).orElseThrow(() -> new BadInputException(
+          "--night: no recorded run planned block '" + block + "' for the night of "
+              + which.night + " in " + where.file() + "; list runs with 'rimeward audit list"
+              + " --block " + block + "'"));
+    }
+    // The latest run, whatever its night: a plan re-run this evening for last night's readings
+    // is still the newest answer the manager got.
+    return store.latestRunFor(block).orElseThrow(() -> new BadInputException("BLOCK: no recorded"
+        + " run planned block '" + block + "' in " + where.file() + "; check the block id, or"
+        + " list runs with 'rimeward audit list'"));
   }
 }

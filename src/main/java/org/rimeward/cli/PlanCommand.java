@@ -121,6 +121,14 @@ final class PlanCommand implements Callable<Integer> {
       Path db = audit != null ? audit : AuditStore.fileFor(farm);
       try (AuditStore store = AuditStore.open(db)) {
         store.appendRun(RunRecorder.toRecord(plan, ranAt));
+        store.settlePendingChanges().forEach(l -> root.spec.commandLine().getErr()
+            .println("rimeward: " + l));
+      } catch (org.rimeward.audit.AuditIntegrityException e) {
+        var err = root.spec.commandLine().getErr();
+        err.println("rimeward: the plan above was NOT recorded in the audit trail: "
+            + e.getMessage());
+        err.flush();
+        return 4;
       } catch (AuditUnavailableException e) {
         var err = root.spec.commandLine().getErr();
         err.println("rimeward: the plan above was NOT recorded in the audit trail: "

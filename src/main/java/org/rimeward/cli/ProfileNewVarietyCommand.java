@@ -3,7 +3,6 @@ package org.rimeward.cli;
 import java.io.PrintWriter;
 import java.time.ZoneId;
 import java.util.List;
-import org.rimeward.audit.AuditStore;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.crop.ProfileEditor;
 import org.rimeward.io.BadInputException;
@@ -56,17 +55,20 @@ final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<In
       }
       fromVariety = fv[1];
     }
-    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+    auditTarget.farm = folder.farm;
+    ProfileEditor editor = new ProfileEditor(
+        folder.resolveForEdit(spec.commandLine().getOut()),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
-    try (AuditStore store = auditTarget.open(spec)) {
-      ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromVariety, offset,
-          ProfileCommand.units(spec), author.note, author.by);
+    String fromV = fromVariety;
+    return ProfileCommand.runEdit(spec, auditTarget, journal -> {
+      ProfileEdit edit = editor.newVariety(cv[0], cv[1], name, fromV, offset,
+          ProfileCommand.units(spec), author.note, author.by, journal);
       PrintWriter out = spec.commandLine().getOut();
       out.println("Added variety " + cv[0] + "/" + cv[1] + " to " + edit.file()
           + (edit.afterC() == null ? " (no hardiness offset)"
               : String.format(java.util.Locale.ROOT, " (hardiness offset %.2f °C, %.1f °F)",
                   edit.afterC(), edit.afterC() * 1.8)));
-      return ProfileCommand.recorded(List.of(edit), auditTarget, store, spec);
-    }
+      return List.of(edit);
+    });
   }
 }

@@ -3,7 +3,6 @@ package org.rimeward.cli;
 import java.io.PrintWriter;
 import java.time.ZoneId;
 import java.util.List;
-import org.rimeward.audit.AuditStore;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.crop.ProfileEditor;
 import org.rimeward.units.UnitSystem;
@@ -41,10 +40,13 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
   public Integer call() {
     String[] cv = ProfileCommand.cropAndVariety(target, "CROP/VARIETY");
     UnitSystem units = ProfileCommand.units(spec);
-    ProfileEditor editor = new ProfileEditor(folder.resolve(),
+    auditTarget.farm = folder.farm;
+    ProfileEditor editor = new ProfileEditor(
+        folder.resolveForEdit(spec.commandLine().getOut()),
         RimewardCommand.clock(spec).withZone(ZoneId.systemDefault()));
-    try (AuditStore store = auditTarget.open(spec)) {
-      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note, author.by);
+    return ProfileCommand.runEdit(spec, auditTarget, journal -> {
+      List<ProfileEdit> edits = editor.set(cv[0], cv[1], stage, t10, t90, units, author.note,
+          author.by, journal);
       PrintWriter out = spec.commandLine().getOut();
       for (ProfileEdit e : edits) {
         out.println(e.crop() + "/" + e.variety() + " " + e.stage() + " " + e.field() + ": before "
@@ -52,7 +54,7 @@ final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> 
             + ProfileCommand.temp(e.afterC(), units));
       }
       out.println("Written to " + edits.get(0).file());
-      return ProfileCommand.recorded(edits, auditTarget, store, spec);
-    }
+      return edits;
+    });
   }
 }

@@ -13,12 +13,25 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
-import org.rimeward.io.Yaml.Entry;
+import static org.rimeward.crop.YamlSplice.copiedOverrides;
+import static org.rimeward.crop.YamlSplice.copyScalar;
+import static org.rimeward.crop.YamlSplice.dashIndent;
+import static org.rimeward.crop.YamlSplice.ensureNewline;
+import static org.rimeward.crop.YamlSplice.insertAfterLineOf;
+import static org.rimeward.crop.YamlSplice.item;
+import static org.rimeward.crop.YamlSplice.newline;
+import static org.rimeward.crop.YamlSplice.overrideNode;
+import static org.rimeward.crop.YamlSplice.quote;
+import static org.rimeward.crop.YamlSplice.remove;
+import static org.rimeward.crop.YamlSplice.replaceFlowWithBlock;
+import static org.rimeward.crop.YamlSplice.setKeys;
+import static org.rimeward.crop.YamlSplice.varietyNode;
+import static org.rimeward.crop.YamlSplice.withUnit;
+
 import org.rimeward.io.Yaml.MapNode;
 import org.rimeward.io.Yaml.Node;
 import org.rimeward.io.Yaml.Scalar;
 import org.rimeward.io.Yaml.SeqNode;
-import org.rimeward.io.AtomicFiles;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
 import org.rimeward.units.Dimension;
@@ -44,7 +57,7 @@ public final class ProfileEditor {
   private final TextWriter writer;
 
   public ProfileEditor(Path dir, Clock clock) {
-    this(dir, clock, AtomicFiles::writeString);
+    this(dir, clock, CropFileWriter::replace);
   }
 
   public ProfileEditor(Path dir, Clock clock, TextWriter writer) {
@@ -64,8 +77,21 @@ public final class ProfileEditor {
    */
   public ProfileEdit newVariety(String crop, String variety, String name, String fromVariety,
       String offsetText, UnitSystem bareAs, String note, String by) {
+    return newVariety(crop, variety, name, fromVariety, offsetText, bareAs, note, by,
+        EditJournal.NONE);
+  }
+
+  /** As above, reporting the change to {@code journal} before and after the file is written. */
+  public ProfileEdit newVariety(String crop, String variety, String name, String fromVariety,
+      String offsetText, UnitSystem bareAs, String note, String by, EditJournal journal) {
     requireNote(note, by);
-    Loaded f = load(crop);
+    return locked(crop, f -> newVariety(f, variety, name, fromVariety, offsetText, bareAs, note,
+        by, journal));
+  }
+
+  private ProfileEdit newVariety(Loaded f, String variety, String name, String fromVariety,
+      String offsetText, UnitSystem bareAs, String note, String by, EditJournal journal) {
+    String crop = f.crop.id();
     if (!CropFileReader.ID.matcher(variety).matches()) {
       throw new BadInputException("variety '" + variety + "' is not a kebab-case id; use lower case"
           + " letters, digits and single hyphens, e.g. honeycrisp or gala-early");
@@ -105,7 +131,7 @@ public final class ProfileEditor {
       String block = item(fields, "  ", nl) + copiedOverrides(f.text, from, "    ", nl);
       edited = ensureNewline(base, nl) + nl + "varieties:" + nl + block;
     } else if (vs instanceof SeqNode seq && !seq.flow()) {
-      String dash = dashIndent(f, seq);
+      String dash = dashIndent(f.file, f.text, seq);
       String block = item(fields, dash, nl) + copiedOverrides(f.text, from, dash + "  ", nl);
       edited = insertAfterLineOf(f.text, seq.end(), block, nl);
     } else if (vs instanceof SeqNode seq && seq.items().isEmpty()) {
@@ -119,10 +145,11 @@ public final class ProfileEditor {
     Crop after = check(f, edited);
     Variety v = after.variety(variety).orElseThrow(() -> new IllegalStateException(
         "the new variety was not found after the edit; nothing written"));
-    write(f, edited);
     Double offset = v.hardinessOffsetC() == 0 ? null : v.hardinessOffsetC();
-    return new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, null, "variety",
-        null, offset, note.strip());
+    ProfileEdit edit = new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, null,
+        "variety", null, offset, note.strip());
+    commit(f, edited, List.of(edit), journal);
+    return edit;
   }
 
   /**
@@ -135,16 +162,27 @@ public final class ProfileEditor {
    */
   public List<ProfileEdit> set(String crop, String variety, String stage, String t10Text,
       String t90Text, UnitSystem bareAs, String note, String by) {
+    return set(crop, variety, stage, t10Text, t90Text, bareAs, note, by, EditJournal.NONE);
+  }
+
+  /** As above, reporting the change to {@code journal} before and after the file is written. */
+  public List<ProfileEdit> set(String crop, String variety, String stage, String t10Text,
+      String t90Text, UnitSystem bareAs, String note, String by, EditJournal journal) {
     requireNote(note, by);
     if (t10Text == null && t90Text == null) {
       throw new BadInputException("nothing to set: give --t10 and/or --t90");
     }
-    Loaded f = load(crop);
     if (variety == null) {
       throw new BadInputException("profile set changes a variety, not the published base table of '"
           + crop + "'; add a variety with rimeward profile new-variety " + crop + "/NAME --note ...,"
           + " then set its values");
     }
+    return locked(crop, f -> set(f, variety, stage, t10Text, t90Text, bareAs, note, by, journal));
+  }
+
+  private List<ProfileEdit> set(Loaded f, String variety, String stage, String t10Text,
+      String t90Text, UnitSystem bareAs, String note, String by, EditJournal journal) {
+    String crop = f.crop.id();
     Variety v = f.crop.variety(variety).orElseThrow(() -> unknownVariety(f.crop, variety));
     f.crop.stage(stage).orElseThrow(() -> new BadInputException("unknown stage '" + stage
         + "' of crop '" + crop + "'; known stages: " + f.crop.stages().stream().map(Stage::id)
@@ -183,7 +221,7 @@ public final class ProfileEditor {
             + (who != null && when != null ? ", " : "") + (when == null ? "" : when) + ")";
         fields.put("note", quote(note.strip() + "; earlier" + earlier + ": " + old.text().strip()));
       }
-      edited = setKeys(f, existing, fields, nl);
+      edited = setKeys(f.file, f.text, existing, fields, nl);
     } else {
       Map<String, String> item = new LinkedHashMap<>();
       item.put("stage", stage);
@@ -193,7 +231,7 @@ public final class ProfileEditor {
         edited = insertAfterLineOf(f.text, vnode.end(), ind + "overrides:" + nl
             + item(item, ind + "  ", nl), nl);
       } else if (ov instanceof SeqNode seq && !seq.flow()) {
-        edited = insertAfterLineOf(f.text, seq.end(), item(item, dashIndent(f, seq), nl), nl);
+        edited = insertAfterLineOf(f.text, seq.end(), item(item, dashIndent(f.file, f.text, seq), nl), nl);
       } else if (ov instanceof SeqNode seq && seq.items().isEmpty()) {
         edited = replaceFlowWithBlock(f.text, seq,
             item(item, " ".repeat(vnode.col() - 1) + "  ", nl), nl);
@@ -209,7 +247,6 @@ public final class ProfileEditor {
       throw new IllegalStateException("the edited file does not give the value asked for; nothing"
           + " written");
     }
-    write(f, edited);
     List<ProfileEdit> edits = new ArrayList<>();
     if (t10 != null) {
       edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, stage, "t10",
@@ -219,12 +256,32 @@ public final class ProfileEditor {
       edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, stage, "t90",
           before.t90C(), now.t90C(), note.strip()));
     }
+    commit(f, edited, edits, journal);
     return edits;
   }
 
-  private record Loaded(Path path, String file, String text, MapNode root, Crop crop) {}
+  private record Loaded(Path path, String file, byte[] bytes, String text, MapNode root,
+      Crop crop) {}
 
-  private Loaded load(String crop) {
+  /**
+   * Runs {@code edit} on the crop file holding its lock: the file is read, edited and replaced
+   * by one program at a time, so two edits at once both land.
+   */
+  private <T> T locked(String crop, java.util.function.Function<Loaded, T> edit) {
+    Path path = cropFile(crop);
+    Path real;
+    try {
+      real = CropFileWriter.target(path);
+    } catch (IOException e) {
+      throw new BadInputException(path + ": cannot be followed to its file (" + e.getMessage()
+          + ")", e);
+    }
+    try (CropFileLock lock = CropFileLock.acquire(real)) {
+      return edit.apply(load(crop, path));
+    }
+  }
+
+  private Path cropFile(String crop) {
     if (BundledData.isReadOnly(dir)) {
       throw new BadInputException("the crop profiles in use (" + dir + ") are the copy packed inside"
           + " the rimeward jar, which cannot be changed. Copy the crop-profiles folder somewhere"
@@ -236,15 +293,17 @@ public final class ProfileEditor {
           + knownCrops());
     }
     if (!Files.isWritable(path)) {
-      throw new BadInputException(path + ": the file cannot be written; check its permissions or"
-          + " pass a folder you can write with --crop-profiles DIR");
+      throw new BadInputException(path + ": permission denied: the file cannot be written; check"
+          + " its permissions or pass a folder you can write with --crop-profiles DIR");
     }
-    String text;
-    try {
-      text = Files.readString(path, StandardCharsets.UTF_8);
-    } catch (IOException e) {
-      throw new BadInputException(path + ": cannot be read: " + e.getMessage(), e);
-    }
+    return path;
+  }
+
+  private Loaded load(String crop, Path path) {
+    org.rimeward.io.TextFile file = org.rimeward.io.TextFile.read(path,
+        org.rimeward.io.TextFile.MAX_DOCUMENT_BYTES, "crop file", "check --crop-profiles");
+    byte[] bytes = file.bytes();
+    String text = file.text();
     List<String> problems = new ArrayList<>();
     Crop c = CropFileReader.read(text, path.toString(), crop, problems);
     if (c == null) {
@@ -252,7 +311,7 @@ public final class ProfileEditor {
           + " (rimeward profile check lists them):" + System.lineSeparator()
           + String.join(System.lineSeparator(), problems));
     }
-    return new Loaded(path, path.toString(), text, CropFileReader.parse(text, path.toString()), c);
+    return new Loaded(path, path.toString(), bytes, text, CropFileReader.parse(text, path.toString()), c);
   }
 
   private String knownCrops() {
@@ -280,12 +339,41 @@ public final class ProfileEditor {
     return c;
   }
 
-  private void write(Loaded f, String edited) {
+  /**
+   * Records the change as pending, replaces the file, then records it as written. The file is not
+   * touched unless the journal took the pending record.
+   */
+  private void commit(Loaded f, String edited, List<ProfileEdit> edits, EditJournal journal) {
+    Path real;
+    try {
+      real = CropFileWriter.target(f.path);
+    } catch (IOException e) {
+      throw new BadInputException(f.file + ": cannot be followed to its file (" + e.getMessage()
+          + "); the file is unchanged", e);
+    }
+    PendingChange change = new PendingChange(real, PendingChange.sha256(f.bytes),
+        PendingChange.sha256(edited), edits);
+    journal.beforeWrite(change);
     try {
       writer.write(f.path, edited);
+    } catch (java.nio.file.AccessDeniedException e) {
+      notWritten(journal, change, "permission denied");
+      throw new BadInputException(f.file + ": permission denied (" + e.getMessage() + "); the file"
+          + " is unchanged", e);
     } catch (IOException e) {
+      notWritten(journal, change, e.getMessage());
       throw new BadInputException(f.file + ": the change could not be written (" + e.getMessage()
           + "); the file is unchanged", e);
+    }
+    journal.afterWrite(change);
+  }
+
+  /** Tells the journal the write failed; the write's own error is what the user must see. */
+  private static void notWritten(EditJournal journal, PendingChange change, String why) {
+    try {
+      journal.notWritten(change, why);
+    } catch (RuntimeException e) {
+      // The pending change stays unsettled; the next command finds the old file and settles it.
     }
   }
 
@@ -310,176 +398,4 @@ public final class ProfileEditor {
     return LocalDate.ofInstant(clock.instant(), clock.getZone()).toString();
   }
 
-  private static MapNode varietyNode(MapNode root, String id) {
-    for (Node n : ((SeqNode) root.get("varieties")).items()) {
-      MapNode m = (MapNode) n;
-      if (id.equals(((Scalar) m.get("id")).text().strip())) {
-        return m;
-      }
-    }
-    throw new IllegalStateException("variety " + id + " not in the tree");
-  }
-
-  private static MapNode overrideNode(SeqNode overrides, String stage) {
-    for (Node n : overrides.items()) {
-      if (n instanceof MapNode m && m.get("stage") instanceof Scalar s && stage.equals(s.text().strip())) {
-        return m;
-      }
-    }
-    return null;
-  }
-
-  /** Replaces the keys {@code m} has, and adds the others after its last line. */
-  private static String setKeys(Loaded f, MapNode m, Map<String, String> fields, String nl) {
-    if (m.flow()) {
-      throw BadInputException.at(f.file + ":" + m.line(), "this override is written in flow style"
-          + " ({...}); write it as a block mapping so it can be edited here");
-    }
-    StringBuilder added = new StringBuilder();
-    String ind = " ".repeat(m.col() - 1);
-    List<Scalar> replace = new ArrayList<>();
-    List<String> with = new ArrayList<>();
-    for (Map.Entry<String, String> e : fields.entrySet()) {
-      Node n = m.get(e.getKey());
-      if (n instanceof Scalar s && !s.isNull()) {
-        replace.add(s);
-        with.add(e.getValue());
-      } else if (n == null) {
-        added.append(ind).append(e.getKey()).append(": ").append(e.getValue()).append(nl);
-      } else {
-        throw BadInputException.at(f.file + ":" + n.line(), e.getKey() + ": expected a single value");
-      }
-    }
-    // The added lines go after every scalar of this mapping, so the scalars' offsets still hold;
-    // replacing from the last one backwards keeps the earlier offsets valid too.
-    StringBuilder text = new StringBuilder(added.length() == 0 ? f.text
-        : insertAfterLineOf(f.text, m.end(), added.toString(), nl));
-    List<Integer> order = new ArrayList<>();
-    for (int i = 0; i < replace.size(); i++) {
-      order.add(i);
-    }
-    order.sort((x, y) -> Integer.compare(replace.get(y).start(), replace.get(x).start()));
-    for (int i : order) {
-      text.replace(replace.get(i).start(), replace.get(i).end(), with.get(i));
-    }
-    return text.toString();
-  }
-
-  private static void copyScalar(String text, MapNode from, String key, Map<String, String> fields) {
-    if (from.get(key) instanceof Scalar s && !s.isNull()) {
-      fields.put(key, raw(text, s));
-    }
-  }
-
-  private static String copiedOverrides(String text, MapNode from, String ind, String nl) {
-    if (from == null || !(from.get("overrides") instanceof SeqNode seq) || seq.items().isEmpty()) {
-      return "";
-    }
-    StringBuilder b = new StringBuilder(ind).append("overrides:").append(nl);
-    for (Node n : seq.items()) {
-      Map<String, String> fields = new LinkedHashMap<>();
-      for (Entry e : ((MapNode) n).entries().values()) {
-        fields.put(e.key(), raw(text, (Scalar) e.value()));
-      }
-      b.append(item(fields, ind + "  ", nl));
-    }
-    return b.toString();
-  }
-
-  private static String raw(String text, Scalar s) {
-    String r = text.substring(s.start(), s.end());
-    return r.contains("\n") || r.contains("\r") ? quote(s.text()) : r;
-  }
-
-  /** One block-sequence item: the first key after {@code dash + "- "}, the rest aligned under it. */
-  private static String item(Map<String, String> fields, String dash, String nl) {
-    StringBuilder b = new StringBuilder();
-    String ind = dash + "  ";
-    boolean first = true;
-    for (Map.Entry<String, String> e : fields.entrySet()) {
-      b.append(first ? dash + "- " : ind).append(e.getKey()).append(": ").append(e.getValue()).append(nl);
-      first = false;
-    }
-    return b.toString();
-  }
-
-  private static String dashIndent(Loaded f, SeqNode seq) {
-    Node first = seq.items().get(0);
-    int lineStart = f.text.lastIndexOf('\n', Math.max(0, first.start() - 1)) + 1;
-    int dashCol = first.col() - 3;
-    if (dashCol < 0 || f.text.charAt(lineStart + dashCol) != '-'
-        || f.text.charAt(lineStart + dashCol + 1) != ' ') {
-      throw BadInputException.at(f.file + ":" + first.line(), "this list is not laid out as '- key:"
-          + " value' with one space after the dash; lay it out that way so it can be edited here");
-    }
-    return " ".repeat(dashCol);
-  }
-
-  static String insertAfterLineOf(String text, int offset, String lines, String nl) {
-    int i = text.indexOf('\n', Math.max(0, offset - 1));
-    if (i < 0) {
-      return text + nl + lines;
-    }
-    return text.substring(0, i + 1) + lines + text.substring(i + 1);
-  }
-
-  private static String replaceFlowWithBlock(String text, SeqNode seq, String block, String nl) {
-    int from = seq.start();
-    while (from > 0 && text.charAt(from - 1) == ' ') {
-      from--;
-    }
-    int to = text.indexOf('\n', seq.end());
-    to = to < 0 ? text.length() : to + 1;
-    String rest = text.substring(seq.end(), to).strip();
-    if (!rest.isEmpty() && !rest.startsWith("#")) {
-      throw new BadInputException("cannot edit the flow list on line " + seq.line()
-          + "; write it as a block list");
-    }
-    return text.substring(0, from) + (rest.isEmpty() ? "" : " " + rest) + nl + block + text.substring(to);
-  }
-
-  private static String remove(String text, Entry e, String nl) {
-    int lineStart = text.lastIndexOf('\n', Math.max(0, e.value().end() - 1)) + 1;
-    int lineEnd = text.indexOf('\n', e.value().end());
-    return text.substring(0, lineStart) + (lineEnd < 0 ? "" : text.substring(lineEnd + 1));
-  }
-
-  private static String ensureNewline(String text, String nl) {
-    return text.isEmpty() || text.endsWith("\n") ? text : text + nl;
-  }
-
-  private static String newline(String text) {
-    return text.contains("\r\n") ? "\r\n" : "\n";
-  }
-
-  /** The quantity as the user wrote it, with the unit of {@code bareAs} added to a bare number. */
-  static String withUnit(String text, UnitSystem bareAs) {
-    String t = text.strip();
-    if (t.matches("[+-]?(\\d+(\\.\\d*)?|\\.\\d+)")) {
-      return t + (bareAs == UnitSystem.US ? "F" : "C");
-    }
-    return t;
-  }
-
-  /** A YAML double-quoted scalar. */
-  static String quote(String s) {
-    StringBuilder b = new StringBuilder("\"");
-    for (char c : s.toCharArray()) {
-      switch (c) {
-        case '"' -> b.append("\\\"");
-        case '\\' -> b.append("\\\\");
-        case '\n' -> b.append("\\n");
-        case '\r' -> b.append("\\r");
-        case '\t' -> b.append("\\t");
-        default -> {
-          if (c < 0x20) {
-            b.append(String.format("\\x%02x", (int) c));
-          } else {
-            b.append(c);
-          }
-        }
-      }
-    }
-    return b.append('"').toString();
-  }
 }

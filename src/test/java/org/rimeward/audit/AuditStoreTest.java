@@ -46,7 +46,8 @@ class AuditStoreTest {
       assertThat(back.blocks().get(0).rules()).extracting(RecordedRule::seq).containsExactly(1, 4);
       assertThat(back.planJson()).isEqualTo(AuditSamples.PLAN_JSON);
       assertThat(store.verify().intact()).isTrue();
-      assertThat(store.verify().recordCount()).isEqualTo(1 + 5 + 3 + 4);
+      // The schema step that created the file, then the run, its 5 inputs, 3 blocks and 4 rules.
+      assertThat(store.verify().recordCount()).isEqualTo(1 + 1 + 5 + 3 + 4);
     }
   }
 
@@ -209,7 +210,7 @@ class AuditStoreTest {
     }
     try (AuditStore store = AuditStore.open(db())) {
       assertThat(store.verify().problem().orElseThrow())
-          .isEqualTo("record 1 (runs, run r1) lists 4 rules but 3 are recorded: the run's newest"
+          .isEqualTo("record 2 (runs, run r1) lists 4 rules but 3 are recorded: the run's newest"
               + " records are missing");
     }
   }
@@ -320,10 +321,41 @@ class AuditStoreTest {
       rs = st.executeQuery("PRAGMA journal_mode");
       assertThat(rs.getString(1)).isEqualTo("wal");
       rs.close();
+    }
+  }
+
+  @Test
+  void aSchemaVersionRowAddedByHandIsTamperingNotANewerRimeward() throws Exception {
+    try (AuditStore store = AuditStore.open(db())) {
+      store.appendRun(AuditSamples.sampleRun("r1", AT, NIGHT));
+    }
+    try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db());
+        Statement st = c.createStatement()) {
       st.executeUpdate("INSERT INTO schema_version VALUES (99, 'later', 'from the future')");
     }
+    assertThatThrownBy(() -> AuditStore.open(db())).isInstanceOf(AuditIntegrityException.class)
+        .hasMessageContaining("schema version row 99").hasMessageContaining("added outside rimeward");
+    assertThatThrownBy(() -> AuditStore.openReadOnly(db()))
+        .isInstanceOf(AuditIntegrityException.class).hasMessageContaining("schema version row 99");
+  }
+
+  @Test
+  void aTrailWrittenByANewerRimewardAsksForThatVersion() throws Exception {
+    try (AuditStore store = AuditStore.open(db())) {
+      store.appendRun(AuditSamples.sampleRun("r1", AT, NIGHT));
+    }
+    // What a later rimeward does on migrating: the version row and its step in the chain.
+    try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db());
+        Statement st = c.createStatement()) {
+      st.execute("BEGIN IMMEDIATE");
+      st.executeUpdate("INSERT INTO schema_version VALUES (99, 'later', 'from the future')");
+      try (ChainWriter w = new ChainWriter(c)) {
+        w.append(Schema.Table.SCHEMA_STEPS, 99L, "later", "from the future");
+      }
+      st.execute("COMMIT");
+    }
     assertThatThrownBy(() -> AuditStore.open(db())).isInstanceOf(AuditUnavailableException.class)
-        .hasMessageContaining("schema version 99");
+        .hasMessageContaining("schema version 99").hasMessageContaining("newer");
   }
 
   @Test

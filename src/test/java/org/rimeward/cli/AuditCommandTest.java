@@ -48,8 +48,9 @@ class AuditCommandTest {
     assertThat(r.exitCode()).as(r.toString()).isZero();
     String[] lines = r.out().split("\n");
     assertThat(lines).hasSize(3);
-    assertThat(lines[0]).startsWith("RUN").contains("NIGHT");
-    assertThat(lines[1]).startsWith(NEW).contains("2026-04-15 18:15:03").contains("2026-04-15")
+    assertThat(lines[0]).startsWith("RUN").contains("RECORDED").contains("NIGHT");
+    // Recorded 18:15 UTC: shown in the farm's own zone, as show and why do.
+    assertThat(lines[1]).startsWith(NEW).contains("2026-04-15 20:15 CEST").contains("2026-04-15")
         .endsWith("2 of 3 blocks");
     assertThat(lines[2]).startsWith(OLD);
 
@@ -172,7 +173,7 @@ class AuditCommandTest {
   void verifySaysIntactOrNamesTheBrokenRecordWithExitCode4() throws Exception {
     Cli.Result ok = Cli.run("audit", "verify", "--farm", farm.toString());
     assertThat(ok.exitCode()).as(ok.toString()).isZero();
-    assertThat(ok.out()).startsWith("chain intact: 26 records\n").contains("head hash: ");
+    assertThat(ok.out()).startsWith("chain intact: 27 records\n").contains("head: 27:");
 
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
@@ -181,8 +182,8 @@ class AuditCommandTest {
     }
     Cli.Result broken = Cli.run("audit", "verify", "--audit", db.toString());
     assertThat(broken.exitCode()).isEqualTo(4);
-    assertThat(broken.out()).startsWith("chain broken: record 14 (runs, run " + NEW + ") hash does"
-        + " not match its content").contains("13 records before it check out");
+    assertThat(broken.out()).startsWith("chain broken: record 15 (runs, run " + NEW + ") hash does"
+        + " not match its content").contains("14 records before it check out");
     Cli.Result show = Cli.run("audit", "show", NEW, "--audit", db.toString());
     assertThat(show.exitCode()).isEqualTo(4);
     assertThat(show.err()).contains("does not match its chain hash");
