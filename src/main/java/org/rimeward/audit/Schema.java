@@ -66,7 +66,11 @@ final class Schema {
     CREW_ACTIONS("crew_actions", List.of(), col("at", Type.TEXT), col("recorded_at", Type.TEXT),
         col("night", Type.TEXT), col("block_id", Type.TEXT), col("kind", Type.TEXT),
         col("done_by", Type.TEXT), col("note", Type.TEXT), nullable("advised_run_id", Type.TEXT),
-        nullable("warning", Type.TEXT));
+        nullable("warning", Type.TEXT)),
+    WATCH_ALARMS("watch_alarms", List.of(), col("at", Type.TEXT), col("night", Type.TEXT),
+        col("block_id", Type.TEXT), col("kind", Type.TEXT), col("level", Type.INTEGER),
+        col("message", Type.TEXT), nullable("run_id", Type.TEXT),
+        nullable("command_status", Type.TEXT));
 
     final String sql;
     final List<String> constraints;
@@ -124,7 +128,8 @@ final class Schema {
   /** Add a step at the end; never change one that has been released. */
   static final List<Migration> MIGRATIONS = List.of(
       new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()),
-      new Migration(2, "what the crew did: sprinklers and covers on and off", v2()));
+      new Migration(2, "what the crew did: sprinklers and covers on and off", v2()),
+      new Migration(3, "the night watch's alarms; inputs stored once by content hash", v3()));
 
   static int latestVersion() {
     return MIGRATIONS.get(MIGRATIONS.size() - 1).version();
@@ -153,6 +158,16 @@ final class Schema {
     s.add(Table.CREW_ACTIONS.createSql());
     s.add("CREATE INDEX crew_actions_by_night ON crew_actions (night, block_id, at)");
     s.addAll(appendOnly("crew_actions"));
+    return List.copyOf(s);
+  }
+
+  private static List<String> v3() {
+    List<String> s = new ArrayList<>();
+    s.add(Table.WATCH_ALARMS.createSql());
+    s.add("CREATE INDEX watch_alarms_by_night ON watch_alarms (night, block_id, kind)");
+    // A run's input whose bytes are already in the trail is stored empty and found by its hash.
+    s.add("CREATE INDEX run_inputs_by_sha ON run_inputs (sha256)");
+    s.addAll(appendOnly("watch_alarms"));
     return List.copyOf(s);
   }
 

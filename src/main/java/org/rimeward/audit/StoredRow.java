@@ -48,6 +48,8 @@ record StoredRow(Table table, long seq, List<Object> values) {
           + r.text("field");
       case CREW_ACTIONS -> "crew action " + r.text("kind") + " on " + r.text("block_id") + " at "
           + r.text("at");
+      case WATCH_ALARMS -> "watch alarm " + r.text("kind") + " on " + r.text("block_id") + " at "
+          + r.text("at");
     };
   }
 

@@ -28,6 +28,8 @@ class LayeringTest {
    */
   static final List<Layer> LAYERS = List.of(
       new Layer("cli", "org.rimeward.cli.."),
+      // The night watch: re-plans through plan, records alarms and re-plans through audit.
+      new Layer("watch", "org.rimeward.watch.."),
       new Layer("audit", "org.rimeward.audit.."),
       new Layer("plan", "org.rimeward.plan.."),
       new Layer("rules", "org.rimeward.rules.."),
