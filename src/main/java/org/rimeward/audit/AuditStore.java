@@ -150,8 +150,11 @@ public final class AuditStore implements AutoCloseable {
             (long) run.blocks().size(), (long) ruleCount, (long) run.protectionNeededCount());
         long ord = 0;
         for (RecordedInput in : run.inputs()) {
+          // Bytes already in the trail are kept once: a night of re-plans every few minutes must
+          // not copy the farm, the profiles and the rules each time. The hash names them.
+          byte[] content = RunReader.storedOnce(db.conn, in.sha256()) ? new byte[0] : in.content();
           a.append(Table.RUN_INPUTS, run.runId(), ord++, in.kind().name(), in.name(), in.sha256(),
-              in.content());
+              content);
         }
         ord = 0;
         for (RecordedBlock b : run.blocks()) {
@@ -190,6 +193,23 @@ public final class AuditStore implements AutoCloseable {
       }
       return null;
     });
+  }
+
+  /** Records an alarm the night watch raised. */
+  public synchronized void appendAlarm(WatchAlarm alarm) {
+    db.inImmediateTransaction("record the " + alarm.kind() + " alarm", () -> {
+      try (ChainWriter a = new ChainWriter(db.conn)) {
+        a.append(Table.WATCH_ALARMS, STORED_INSTANT.format(alarm.at()), alarm.night().toString(),
+            alarm.blockId(), alarm.kind(), (long) alarm.level(), alarm.message(),
+            alarm.runId().orElse(null), alarm.commandStatus().orElse(null));
+      }
+      return null;
+    });
+  }
+
+  /** The alarms the watch raised for a night, in the order raised. */
+  public synchronized List<WatchAlarm> listAlarms(LocalDate night) {
+    return db.read("list the watch's alarms", () -> new RunReader(db.conn).alarms(night));
   }
 
   /** Records what the crew did, as one chain record. */

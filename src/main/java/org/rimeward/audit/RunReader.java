@@ -147,6 +147,46 @@ final class RunReader {
         r.real("after_c"), r.text("note"));
   }
 
+  List<WatchAlarm> alarms(LocalDate night) throws SQLException {
+    List<WatchAlarm> out = new ArrayList<>();
+    for (StoredRow r : StoredRow.select(conn, Table.WATCH_ALARMS, "t.night = ? ORDER BY t.seq",
+        night.toString())) {
+      out.add(new WatchAlarm(Instant.parse(r.text("at")), LocalDate.parse(r.text("night")),
+          r.text("block_id"), r.text("kind"), Math.toIntExact(r.integer("level")), r.text("message"),
+          Optional.ofNullable(r.text("run_id")), Optional.ofNullable(r.text("command_status"))));
+    }
+    return out;
+  }
+
+  /** SHA-256 of no bytes: an empty input is stored as it is. */
+  private static final String EMPTY_SHA256 =
+      "e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855";
+
+  /** Whether the trail already holds these bytes in full, under their hash. */
+  static boolean storedOnce(Connection conn, String sha256) throws SQLException {
+    if (EMPTY_SHA256.equals(sha256)) {
+      return false;
+    }
+    try (PreparedStatement ps = conn.prepareStatement("SELECT 1 FROM run_inputs WHERE sha256 = ?"
+        + " AND length(content) > 0 LIMIT 1")) {
+      ps.setString(1, sha256);
+      try (ResultSet rs = ps.executeQuery()) {
+        return rs.next();
+      }
+    }
+  }
+
+  /** The bytes of an input stored once elsewhere in the trail, checked against their row's hash. */
+  private byte[] contentOf(String sha256, StoredRow referring) throws SQLException {
+    List<StoredRow> full = StoredRow.select(conn, Table.RUN_INPUTS, "t.sha256 = ? AND"
+        + " length(t.content) > 0 ORDER BY t.seq LIMIT 1", sha256);
+    if (full.isEmpty()) {
+      throw new AuditIntegrityException(referring.describe() + " refers to bytes (sha256 "
+          + sha256 + ") no longer in the trail; run 'rimeward audit verify'");
+    }
+    return full.get(0).blob("content");
+  }
+
   /** The whole run with this exact id, which must exist. */
   RunRecord load(String runId) throws SQLException {
     StoredRow run = StoredRow.select(conn, Table.RUNS, "t.run_id = ?", runId).get(0);
@@ -154,8 +194,12 @@ final class RunReader {
     for (StoredRow r : StoredRow.select(conn, Table.RUN_INPUTS, "t.run_id = ? ORDER BY t.ord",
         runId)) {
       try {
+        byte[] content = r.blob("content");
+        if (content.length == 0 && !EMPTY_SHA256.equals(r.text("sha256"))) {
+          content = contentOf(r.text("sha256"), r);
+        }
         inputs.add(new RecordedInput(InputKind.valueOf(r.text("kind")), r.text("name"),
-            r.text("sha256"), r.blob("content")));
+            r.text("sha256"), content));
       } catch (IllegalArgumentException e) {
         throw new AuditIntegrityException(r.describe() + " cannot be read back: " + e.getMessage());
       }

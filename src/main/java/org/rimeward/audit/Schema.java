@@ -80,7 +80,11 @@ final class Schema {
      * its chained step was added by hand.
      */
     SCHEMA_STEPS("schema_steps", List.of("UNIQUE (version)"), col("version", Type.INTEGER),
-        col("applied_at", Type.TEXT), col("description", Type.TEXT));
+        col("applied_at", Type.TEXT), col("description", Type.TEXT)),
+    WATCH_ALARMS("watch_alarms", List.of(), col("at", Type.TEXT), col("night", Type.TEXT),
+        col("block_id", Type.TEXT), col("kind", Type.TEXT), col("level", Type.INTEGER),
+        col("message", Type.TEXT), nullable("run_id", Type.TEXT),
+        nullable("command_status", Type.TEXT));
 
     final String sql;
     final List<String> constraints;
@@ -140,7 +144,8 @@ final class Schema {
       new Migration(1, "hash-chained runs, inputs, blocks, rules and profile edits", v1()),
       new Migration(2, "what the crew did: sprinklers and covers on and off", v2()),
       new Migration(3, "crop-file changes recorded before they are written; schema steps chained",
-          v3()));
+          v3()),
+      new Migration(4, "the night watch's alarms; inputs stored once by content hash", v4()));
 
   static int latestVersion() {
     return MIGRATIONS.get(MIGRATIONS.size() - 1).version();
@@ -179,6 +184,16 @@ final class Schema {
     s.add(Table.SCHEMA_STEPS.createSql());
     s.addAll(appendOnly("file_changes"));
     s.addAll(appendOnly("schema_steps"));
+    return List.copyOf(s);
+  }
+
+  private static List<String> v4() {
+    List<String> s = new ArrayList<>();
+    s.add(Table.WATCH_ALARMS.createSql());
+    s.add("CREATE INDEX watch_alarms_by_night ON watch_alarms (night, block_id, kind)");
+    // A run's input whose bytes are already in the trail is stored empty and found by its hash.
+    s.add("CREATE INDEX run_inputs_by_sha ON run_inputs (sha256)");
+    s.addAll(appendOnly("watch_alarms"));
     return List.copyOf(s);
   }
 

@@ -50,6 +50,8 @@ record StoredRow(Table table, long seq, List<Object> values) {
           + r.text("at");
       case FILE_CHANGES -> "change of " + r.text("file") + " " + r.text("state");
       case SCHEMA_STEPS -> "schema step " + r.integer("version");
+      case WATCH_ALARMS -> "watch alarm " + r.text("kind") + " on " + r.text("block_id") + " at "
+          + r.text("at");
     };
   }
 

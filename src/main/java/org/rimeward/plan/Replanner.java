@@ -38,6 +38,7 @@ public final class Replanner {
   private final Instant sunrise;
   private final NightPlanner planner;
   private final SiteMinimumStep siteMinimum;
+  private Forecast lastForecast;
 
   private Replanner(Farm farm, Forecast forecast, CropLibrary crops, RuleBook book,
       PlanInputs inputs, LocalDate night, NightPlanner planner) {
@@ -106,6 +107,7 @@ public final class Replanner {
     if (site.isPresent() && site.get().usedSite()) {
       planned = siteMinimum.curve(planned, site.get(), sunset, sunrise, now);
     }
+    lastForecast = planned;
     List<PlanInputs.Input> files = new ArrayList<>(inputs.files());
     files.add(new PlanInputs.Input(PlanInputs.Kind.READINGS,
         readings.file().getFileName().toString(), readingsBytes));
@@ -117,6 +119,11 @@ public final class Replanner {
         ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT, readings.readings().size(),
         readings.skipped().stream().map(Readings.Skipped::message).toList(), stale, site);
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
+  }
+
+  /** The corrected forecast the latest {@link #replan} planned by (the forecast before any). */
+  public Forecast lastForecast() {
+    return lastForecast != null ? lastForecast : forecast;
   }
 
   /** The station whose readings run coldest against the forecast over the last hour. */

@@ -30,6 +30,8 @@ class LayeringTest {
       new Layer("cli", "org.rimeward.cli.."),
       // The HTML pages and the season: drawn from tonight's plan or from the trail.
       new Layer("report", "org.rimeward.report.."),
+      // The night watch: re-plans through plan, records alarms and re-plans through audit.
+      new Layer("watch", "org.rimeward.watch.."),
       new Layer("audit", "org.rimeward.audit.."),
       new Layer("plan", "org.rimeward.plan.."),
       new Layer("rules", "org.rimeward.rules.."),
