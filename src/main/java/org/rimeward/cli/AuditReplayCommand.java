@@ -53,7 +53,8 @@ final class AuditReplayCommand implements Callable<Integer> {
     return AuditCommand.guarded(spec, () -> {
       RunRecord rec = AuditShowCommand.load(where, run);
       Replay.Result result = new Replay(new NightPlanner()).replay(rec,
-          currentRules ? folders.rules() : null, currentProfiles ? folders.cropProfiles() : null);
+          currentRules ? folders.rules(where.farm) : null,
+          currentProfiles ? folders.cropProfiles(where.farm) : null);
       PrintWriter out = spec.commandLine().getOut();
       out.print(result.text());
       out.flush();
