@@ -30,7 +30,8 @@ import org.rimeward.plan.PlanRequest;
  */
 public final class Replay {
   /** Keys of the plan document that say nothing about the decision. */
-  static final Set<String> IGNORED = Set.of("tool_version");
+  // Where a replay's inputs sit is a temporary folder; what they were is compared file by file.
+  static final Set<String> IGNORED = Set.of("tool_version", "inputs");
 
   /**
    * Keys at any depth left out of the comparison: a block's night series is the physics behind

@@ -78,7 +78,8 @@ final class AuditReplayCommand implements Callable<Integer> {
         }
       }
       Replay.Result result = new Replay(new NightPlanner()).replay(rec,
-          currentRules ? folders.rules() : null, currentProfiles ? folders.cropProfiles() : null);
+          currentRules ? folders.rules(where.farm) : null,
+          currentProfiles ? folders.cropProfiles(where.farm) : null);
       PrintWriter out = spec.commandLine().getOut();
       out.print(result.text());
       out.flush();

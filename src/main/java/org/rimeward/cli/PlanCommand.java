@@ -35,6 +35,9 @@ import picocli.CommandLine.ParentCommand;
         + " stderr; nothing of the run was kept there).",
         "", Cautions.HELP_FOOTER})
 final class PlanCommand implements Callable<Integer> {
+  /** A fetched forecast older than this is likely yesterday's: say so. */
+  static final java.time.Duration STALE_FETCH = java.time.Duration.ofHours(12);
+
   enum Format { TEXT, JSON, CSV, HTML }
 
   @ParentCommand RimewardCommand root;
@@ -45,7 +48,8 @@ final class PlanCommand implements Callable<Integer> {
   Path farm;
 
   @Option(names = "--forecast", paramLabel = "FILE",
-      description = "Forecast CSV to use instead of the one the farm file names.")
+      description = "Forecast to use instead of the one the farm file names: Rimeward's CSV, or an"
+          + " Open-Meteo, NWS gridpoint or MET Norway JSON response, recognised by content.")
   Path forecast;
 
   @Option(names = "--night", paramLabel = "YYYY-MM-DD",
@@ -97,7 +101,7 @@ final class PlanCommand implements Callable<Integer> {
     }
     OutputFile.check(output);
     Instant ranAt = root.clock.instant();
-    PlanRequest request = new PlanRequest(farm, forecast, folders.cropProfiles(), folders.rules(),
+    PlanRequest request = new PlanRequest(farm, forecast, folders.cropProfiles, folders.rules,
         night);
     if (readings == null && (now != null || station != null)) {
       throw new BadInputException((now != null ? "--now" : "--station") + ": only means something"
@@ -116,6 +120,8 @@ final class PlanCommand implements Callable<Integer> {
       default -> PlanText.render(plan, root.global.units(), explain);
     };
     OutputFile.write(out, output, text, "the plan");
+    out.flush();
+    warnIfStale(plan, ranAt);
     if (!noAudit) {
       // --farm may name the farm file itself; the trail then sits beside it.
       Path db = audit != null ? audit : AuditStore.fileFor(farm);
@@ -138,5 +144,19 @@ final class PlanCommand implements Callable<Integer> {
       }
     }
     return exitCodeOnAction && plan.actionNeeded() ? Main.ACTION_NEEDED : Main.OK;
+  }
+
+  private void warnIfStale(Plan plan, Instant now) {
+    var fetched = plan.inputs().forecast().fetched();
+    if (fetched == null) {
+      return;
+    }
+    long hours = java.time.Duration.between(fetched.fetchedAt(), now).toHours();
+    if (hours >= STALE_FETCH.toHours()) {
+      var err = root.spec.commandLine().getErr();
+      err.println("rimeward: caution: this forecast was fetched " + hours + " h ago, for the night of "
+          + plan.night().date() + "; fetch tonight's with 'rimeward forecast fetch' and plan again");
+      err.flush();
+    }
   }
 }

@@ -13,7 +13,7 @@ import picocli.CommandLine.Spec;
     versionProvider = RimewardCommand.Version.class,
     description = "Frost-protection decision support for orchards, vineyards and berry fields.",
     subcommands = {PlanCommand.class, ProfileCommand.class, AuditCommand.class, CalcCommand.class,
-        MinimumCommand.class, ActionCommand.class, WatchCommand.class},
+        MinimumCommand.class, ActionCommand.class, WatchCommand.class, ForecastCommand.class},
     footer = {"", Cautions.HELP_FOOTER})
 public final class RimewardCommand implements Runnable {
   @Mixin GlobalOptions global = new GlobalOptions();
@@ -37,7 +37,8 @@ public final class RimewardCommand implements Runnable {
 
   @Override
   public void run() {
-    throw new ParameterException(spec.commandLine(), "a command is required: plan, watch, action, profile, audit, calc or minimum");
+    throw new ParameterException(spec.commandLine(), "a command is required: plan, watch,"
+        + " action, profile, audit, calc, minimum or forecast");
   }
 
   /** The version written into the jar's manifest, or the build's properties when not in a jar. */

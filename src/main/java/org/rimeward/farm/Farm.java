@@ -28,6 +28,10 @@ import java.util.Set;
  * @param waterSources water sources in file order
  * @param blocks blocks in file order
  * @param origin the farm file (line 1), for messages and the audit
+ * @param cropProfilesDir the crop-profiles folder farm.yaml names, resolved against the folder
+ * @param rulesDir the rules folder farm.yaml names, resolved against the folder
+ * @param contact who the weather services may contact about this farm's requests (an e-mail
+ *     address or web page), sent with {@code forecast fetch} where a service asks for one
  */
 public record Farm(
     String name,
@@ -40,11 +44,17 @@ public record Farm(
     Policy policy,
     List<WaterSource> waterSources,
     List<Block> blocks,
-    SourceRef origin) {
+    SourceRef origin,
+    Optional<Path> cropProfilesDir,
+    Optional<Path> rulesDir,
+    Optional<String> contact) {
 
   /** Elevations accepted, m: the range the station-pressure formula is used over, one range. */
   public static final double MIN_ELEVATION_M = org.rimeward.physics.Atmosphere.MIN_ELEVATION_M;
   public static final double MAX_ELEVATION_M = org.rimeward.physics.Atmosphere.MAX_ELEVATION_M;
+  /** The folders a farm folder may hold its own inputs in, when farm.yaml names none. */
+  public static final String DEFAULT_CROP_PROFILES = "crop-profiles";
+  public static final String DEFAULT_RULES = "rules";
 
   public Farm {
     if (name == null || name.isBlank()) {
@@ -68,6 +78,9 @@ public record Farm(
     Objects.requireNonNull(forecastFile, "forecastFile");
     Objects.requireNonNull(policy, "policy");
     Objects.requireNonNull(origin, "origin");
+    Objects.requireNonNull(cropProfilesDir, "cropProfilesDir");
+    Objects.requireNonNull(rulesDir, "rulesDir");
+    Objects.requireNonNull(contact, "contact");
     waterSources = List.copyOf(waterSources);
     blocks = List.copyOf(blocks);
     if (blocks.isEmpty()) {
@@ -91,6 +104,20 @@ public record Farm(
         }
       });
     }
+  }
+
+  /** The farm folder's own crop profiles: the folder farm.yaml names, else {@code crop-profiles/} there. */
+  public Optional<Path> ownCropProfiles() {
+    return cropProfilesDir.or(() -> existing(folder.resolve(DEFAULT_CROP_PROFILES)));
+  }
+
+  /** The farm folder's own rules: the folder farm.yaml names, else {@code rules/} there. */
+  public Optional<Path> ownRules() {
+    return rulesDir.or(() -> existing(folder.resolve(DEFAULT_RULES)));
+  }
+
+  private static Optional<Path> existing(Path dir) {
+    return java.nio.file.Files.isDirectory(dir) ? Optional.of(dir) : Optional.empty();
   }
 
   /** The farm file itself, for the audit (its bytes can be read from here). */

@@ -10,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.Fields;
@@ -67,7 +68,7 @@ public final class FarmLoader {
     if (top == null) {
       return null;
     }
-    top.allow("farm", "forecast", "policy", "water_sources", "blocks");
+    top.allow("farm", "forecast", "policy", "water_sources", "blocks", "crop_profiles", "rules");
     if (!top.has("farm")) {
       top.text("farm", "the farm's name, latitude, longitude, elevation and timezone");
     }
@@ -77,8 +78,9 @@ public final class FarmLoader {
     Double longitude = null;
     Double elevationM = null;
     ZoneId zone = null;
+    Optional<String> contact = Optional.empty();
     if (farm != null) {
-      farm.allow("name", "latitude", "longitude", "elevation", "timezone");
+      farm.allow("name", "latitude", "longitude", "elevation", "timezone", "contact");
       name = name(farm);
       latitude = degrees(farm, "latitude", 90, "north positive, e.g. 46.21 (or -33.9 south of the"
           + " equator)");
@@ -86,8 +88,11 @@ public final class FarmLoader {
           + " hemisphere");
       elevationM = elevation(farm);
       zone = zone(farm);
+      contact = Optional.ofNullable(farm.optionalText("contact")).map(String::strip);
     }
     Path forecastFile = forecast(top, folder);
+    Optional<Path> cropProfiles = dataFolder(top, "crop_profiles", folder, Farm.DEFAULT_CROP_PROFILES);
+    Optional<Path> rules = dataFolder(top, "rules", folder, Farm.DEFAULT_RULES);
     Policy policy = top.has("policy") ? PolicyReader.read(top.map("policy", "target, start_margin"
         + " and stop_rule")) : Policy.DEFAULT;
     Set<String> declared = new HashSet<>();
@@ -101,7 +106,7 @@ public final class FarmLoader {
     }
     try {
       return new Farm(name, latitude, longitude, elevationM, zone, folder, forecastFile, policy,
-          sources, blocks, new SourceRef(problems.label(), 1));
+          sources, blocks, new SourceRef(problems.label(), 1), cropProfiles, rules, contact);
     } catch (IllegalArgumentException e) {
       throw BadInputException.at(problems.label(), e.getMessage());
     }
@@ -159,6 +164,26 @@ public final class FarmLoader {
     return null;
   }
 
+  /** A crop-profiles or rules folder farm.yaml names, relative to itself; it must exist. */
+  private static Optional<Path> dataFolder(Fields top, String key, Path folder, String usual) {
+    String name = top.optionalText(key);
+    if (name == null) {
+      return Optional.empty();
+    }
+    try {
+      Path dir = folder.resolve(name).normalize();
+      if (java.nio.file.Files.isDirectory(dir)) {
+        return Optional.of(dir);
+      }
+      top.problem(key, top.quoted(key) + " is not a folder next to the farm file (" + dir + ");"
+          + " create it, or leave the line out to use " + usual + "/ beside farm.yaml if present,"
+          + " else the bundled copies");
+    } catch (InvalidPathException e) {
+      top.problem(key, top.quoted(key) + " is not a usable folder name (" + e.getReason() + ")");
+    }
+    return Optional.empty();
+  }
+
   private static Path forecast(Fields top, Path folder) {
     String f = top.optionalText("forecast");
     if (f == null) {
@@ -168,8 +193,8 @@ public final class FarmLoader {
       return folder.resolve(f);
     } catch (InvalidPathException e) {
       top.problem("forecast", top.quoted("forecast") + " is not a usable file name ("
-          + e.getReason() + "); give the forecast CSV's name relative to the farm folder, e.g."
-          + " forecast.csv");
+          + e.getReason() + "); give the forecast file's name relative to the farm folder, e.g."
+          + " forecast.csv, or a folder of fetched forecasts, e.g. forecasts/");
       return null;
     }
   }

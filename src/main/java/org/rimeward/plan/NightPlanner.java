@@ -13,6 +13,7 @@ import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.stream.Stream;
 import org.rimeward.crop.CropLibrary;
 import org.rimeward.crop.EffectiveProfile;
@@ -39,9 +40,13 @@ import org.rimeward.rules.facts.StopBeyondForecast;
 import org.rimeward.rules.facts.TargetBasis;
 import org.rimeward.rules.facts.WaterSourceFact;
 import org.rimeward.water.IrrigationSet;
+import org.rimeward.weather.CoarseSpan;
+import org.rimeward.weather.FetchRecord;
 import org.rimeward.weather.Forecast;
-import org.rimeward.weather.ForecastReader;
+import org.rimeward.weather.ForecastFiles;
 import org.rimeward.weather.ForecastStep;
+import org.rimeward.weather.Interpolation;
+import org.rimeward.weather.Site;
 
 /**
  * The nightly decision run: reads the farm, the forecast, the crop profiles and the rules,
@@ -49,9 +54,6 @@ import org.rimeward.weather.ForecastStep;
  * plan. It reads no clock: the night comes from the request or the forecast.
  */
 public final class NightPlanner {
-  /** Steps further apart than this leave part of the night unknown. */
-  static final Duration MAX_STEP = Duration.ofMinutes(61);
-
   /** The forecast must reach this far past sunrise, so a stop time can be found. */
   static final Duration AFTER_SUNRISE = Duration.ofHours(1);
 
@@ -72,17 +74,47 @@ public final class NightPlanner {
   }
 
   public Plan plan(PlanRequest request) {
-    // Each file is read once: the bytes planned from are the bytes the audit trail keeps.
+    Read r = read(request);
+    return plan(r.farm(), r.forecast(), r.crops(), r.book(), r.night(), r.inputs());
+  }
+
+  /**
+   * Everything a run reads, each file once: the bytes planned from are the bytes the audit trail
+   * keeps.
+   *
+   * @param night the evening asked for, or the one a fetched forecast was fetched for; null when
+   *     neither says, for the caller to take from the forecast
+   */
+  public record Read(Farm farm, Forecast forecast, CropLibrary crops, RuleBook book,
+      PlanInputs inputs, LocalDate night) {}
+
+  /** Reads the farm, the forecast, the crop profiles and the rules a request names. */
+  public Read read(PlanRequest request) {
     Loaded<Farm> farmFile = FarmLoader.loadWithContent(request.farmDir());
     Farm farm = farmFile.value();
-    Path forecastFile = request.forecastFile() != null ? request.forecastFile() : farm.forecastFile();
-    Loaded<Forecast> forecastRead = ForecastReader.readWithContent(forecastFile, farm.zone());
+    Path forecastFile = ForecastFiles.resolve(
+        request.forecastFile() != null ? request.forecastFile() : farm.forecastFile());
+    Loaded<Forecast> forecastRead = ForecastFiles.readWithContent(forecastFile, site(farm));
     Forecast forecast = forecastRead.value();
-    CropLibrary crops = CropLibrary.load(request.cropProfilesDir());
-    RuleBook book = rules.load(request.rulesDir());
-    PlanInputs inputs = inputsOf(farm, farmFile.content(), forecastFile, forecastRead.content(),
-        request.cropProfilesDir(), book);
-    return plan(farm, forecast, crops, book, request.night(), inputs);
+    // The farm folder is the unit: its own profiles and rules, else the bundled ones; never
+    // whatever folder the run happens to start in.
+    DataFolder profiles = DataFolder.choose(request.cropProfilesDir(), farm.ownCropProfiles(),
+        Farm.DEFAULT_CROP_PROFILES, farm);
+    DataFolder ruleDir = DataFolder.choose(request.rulesDir(), farm.ownRules(), Farm.DEFAULT_RULES, farm);
+    CropLibrary crops = CropLibrary.load(profiles.dir());
+    RuleBook book = rules.load(ruleDir.dir());
+    Optional<FetchRecord> fetched = FetchRecord.besides(forecastFile);
+    PlanInputs inputs = inputsOf(farm, farmFile.content(), forecast, forecastRead.content(),
+        profiles, ruleDir, book, fetched);
+    // A fetched forecast knows the evening it was fetched for; a file saved by hand does not.
+    LocalDate night = request.night() != null ? request.night()
+        : fetched.map(FetchRecord::night).orElse(null);
+    return new Read(farm, forecast, crops, book, inputs, night);
+  }
+
+  /** The farm's point and zone, as the forecast readers check them. */
+  public static Site site(Farm farm) {
+    return new Site(farm.latitude(), farm.longitude(), farm.zone());
   }
 
   /** Plans a night from inputs already read. */
@@ -97,7 +129,10 @@ public final class NightPlanner {
     Instant sunrise = sun.sunrise().map(ZonedDateTime::toInstant).orElseThrow(() -> new BadInputException(
         farm.origin() + ": the sun does not rise at latitude " + farm.latitude() + " on "
             + date.plusDays(1) + "; Rimeward plans nights that have a sunset and a sunrise"));
-    List<ForecastStep> window = window(forecast, forecastName, farm, date, sunset, sunrise);
+    List<String> forecastNotes = new ArrayList<>(inputs.forecast().notes());
+    List<ForecastStep> window = window(forecast, forecastName, farm, date, sunset, sunrise,
+        forecastNotes);
+    inputs = inputs.withForecastNotes(forecastNotes);
 
     double pressureKPa = Atmosphere.stationPressureKPa(farm.elevationM());
     NightFact nightFact = new NightFact(date, farm.zone(), sunset, sunrise, pressureKPa);
@@ -149,6 +184,12 @@ public final class NightPlanner {
    */
   static List<ForecastStep> window(Forecast forecast, String name, Farm farm, LocalDate date,
       Instant sunset, Instant sunrise) {
+    return window(forecast, name, farm, date, sunset, sunrise, new ArrayList<>());
+  }
+
+  /** As above, adding to {@code notes} what the plan should say about how the forecast was used. */
+  static List<ForecastStep> window(Forecast forecast, String name, Farm farm, LocalDate date,
+      Instant sunset, Instant sunrise, List<String> notes) {
     List<ForecastStep> steps = forecast.steps();
     Instant noon = date.plusDays(1).atTime(12, 0).atZone(farm.zone()).toInstant();
     if (!forecast.start().isBefore(sunrise)) {
@@ -176,14 +217,60 @@ public final class NightPlanner {
     }
     List<ForecastStep> window = steps.subList(first, last + 1);
     for (int i = 1; i < window.size(); i++) {
-      Duration gap = Duration.between(window.get(i - 1).time(), window.get(i).time());
-      if (gap.compareTo(MAX_STEP) > 0) {
-        throw new BadInputException(name + ":" + window.get(i).line() + ": " + gap.toMinutes()
-            + " minutes pass between line " + window.get(i - 1).line() + " and this line, during the"
-            + " night; the forecast must be hourly or finer from sunset to the morning");
+      ForecastStep a = window.get(i - 1);
+      ForecastStep b = window.get(i);
+      Duration gap = Duration.between(a.time(), b.time());
+      if (gap.compareTo(Interpolation.MAX_STEP) > 0) {
+        String where = b.line() > 0 ? name + ":" + b.line() + ": " + gap.toMinutes()
+            + " minutes pass between line " + a.line() + " and this line"
+            : name + ": " + gap.toMinutes() + " minutes pass between " + local(a.time(), farm)
+                + " and " + local(b.time(), farm);
+        throw new BadInputException(where + ", during the night; Rimeward fills steps of up to 3 h"
+            + " by interpolating in time, but across a longer step the night's cooling, and the"
+            + " hour it reaches the start temperature, cannot be told; give a forecast with steps"
+            + " of 3 h or less from sunset to the morning");
       }
     }
-    return List.copyOf(window);
+    Interpolation.Hourly hourly = Interpolation.toHourly(window, farm.zone());
+    if (hourly.interpolated()) {
+      notes.add("forecast steps of up to " + hours(hourly.filledFrom()) + " were interpolated to"
+          + " hourly (air temperature, dew point, wind and cloud linear in time)");
+    }
+    coarse(forecast, window, name, farm, notes);
+    return hourly.steps();
+  }
+
+  /**
+   * Says which properties the source gave coarser than hourly during the night, and refuses a
+   * temperature or dew point held over more than 3 h, as it would a CSV with such steps.
+   */
+  private static void coarse(Forecast forecast, List<ForecastStep> window, String name, Farm farm,
+      List<String> notes) {
+    Instant from = window.get(0).time();
+    Instant to = window.get(window.size() - 1).time();
+    Map<String, Duration> longest = new java.util.TreeMap<>();
+    for (CoarseSpan c : forecast.coarse()) {
+      if (!c.overlaps(from, to)) {
+        continue;
+      }
+      if (c.interpolated() && c.length().compareTo(Interpolation.MAX_STEP) > 0) {
+        throw new BadInputException(name + ": " + c.property() + " is given once for "
+            + hours(c.length()) + " from " + local(c.from(), farm) + ", during the night; Rimeward"
+            + " interpolates temperature and dew point across at most 3 h; fetch a newer forecast"
+            + " or give one with steps of 3 h or less");
+      }
+      longest.merge(c.property(), c.length(), (x, y) -> x.compareTo(y) >= 0 ? x : y);
+    }
+    if (!longest.isEmpty()) {
+      List<String> parts = new ArrayList<>();
+      longest.forEach((p, d) -> parts.add(p + " (up to " + hours(d) + ")"));
+      notes.add("coarser than hourly tonight, spread over the hours: " + String.join(", ", parts));
+    }
+  }
+
+  private static String hours(Duration d) {
+    long min = d.toMinutes();
+    return min % 60 == 0 ? (min / 60) + " h" : String.format(java.util.Locale.ROOT, "%.1f h", min / 60.0);
   }
 
   private static String local(Instant t, Farm farm) {
@@ -237,14 +324,20 @@ public final class NightPlanner {
     return digits.length() == 2 && digits.charAt(0) == '6';
   }
 
-  static PlanInputs inputsOf(Farm farm, byte[] farmBytes, Path forecastFile, byte[] forecastBytes,
-      Path cropDir, RuleBook book) {
+  static PlanInputs inputsOf(Farm farm, byte[] farmBytes, Forecast forecast, byte[] forecastBytes,
+      DataFolder cropDir, DataFolder ruleDir, RuleBook book) {
+    return inputsOf(farm, farmBytes, forecast, forecastBytes, cropDir, ruleDir, book, Optional.empty());
+  }
+
+  static PlanInputs inputsOf(Farm farm, byte[] farmBytes, Forecast forecast, byte[] forecastBytes,
+      DataFolder cropDir, DataFolder ruleDir, RuleBook book, Optional<FetchRecord> fetch) {
+    Path forecastFile = forecast.file();
     List<PlanInputs.Input> files = new ArrayList<>();
     files.add(new PlanInputs.Input(PlanInputs.Kind.FARM, farm.sourceFile().getFileName().toString(),
         farmBytes));
     files.add(new PlanInputs.Input(PlanInputs.Kind.FORECAST, forecastFile.getFileName().toString(),
         forecastBytes));
-    try (Stream<Path> list = Files.list(cropDir)) {
+    try (Stream<Path> list = Files.list(cropDir.dir())) {
       for (Path p : list.filter(Files::isRegularFile).sorted().toList()) {
         files.add(new PlanInputs.Input(PlanInputs.Kind.CROP_PROFILE, p.getFileName().toString(), read(p)));
       }
@@ -255,7 +348,17 @@ public final class NightPlanner {
       files.add(new PlanInputs.Input(PlanInputs.Kind.RULE, f.name(),
           f.text().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
     }
-    return new PlanInputs(files);
+    PlanInputs.Fetched fetched = fetch.map(r -> new PlanInputs.Fetched(r.source(), r.url(),
+        r.fetchedAt(), r.sha256(), r.sha256().equals(FetchRecord.sha256(forecastBytes)))).orElse(null);
+    List<String> notes = new ArrayList<>(forecast.notes());
+    if (fetched != null && !fetched.unchanged()) {
+      notes.add("the forecast file was changed after it was fetched");
+    }
+    PlanInputs.ForecastUsed used = new PlanInputs.ForecastUsed(
+        DataFolder.shown(forecastFile, farm), forecast.format().id(), notes, fetched);
+    return new PlanInputs(files, used,
+        cropDir.describe(PlanInputs.digest(files, PlanInputs.Kind.CROP_PROFILE)),
+        ruleDir.describe(PlanInputs.digest(files, PlanInputs.Kind.RULE)));
   }
 
   private static byte[] read(Path p) {

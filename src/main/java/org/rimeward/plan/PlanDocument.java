@@ -26,6 +26,7 @@ public record PlanDocument(
     String toolVersion,
     Night night,
     Policy policy,
+    Inputs inputs,
     List<Block> blocks,
     List<Water> water,
     List<String> cautions,
@@ -35,10 +36,11 @@ public record PlanDocument(
     @JsonInclude(JsonInclude.Include.NON_NULL) Readings readings,
     @JsonInclude(JsonInclude.Include.NON_NULL) List<Change> changes) {
   /** A plan made at dusk: no {@code now}, {@code readings} or {@code changes}. */
-  public PlanDocument(String farm, String toolVersion, Night night, Policy policy,
+  public PlanDocument(String farm, String toolVersion, Night night, Policy policy, Inputs inputs,
       List<Block> blocks, List<Water> water, List<String> cautions, List<Rule> farmRules,
       List<TimelineEntry> timeline) {
-    this(farm, toolVersion, night, policy, blocks, water, cautions, farmRules, timeline, null, null,
+    this(farm, toolVersion, night, policy, inputs, blocks, water, cautions, farmRules, timeline,
+        null, null,
         null);
   }
 
@@ -108,6 +110,36 @@ public record PlanDocument(
       OffsetDateTime sunrise,
       OffsetDateTime coldestAt,
       @JsonSerialize(using = Decimals.Two.class) double minAirC) {}
+
+  /**
+   * Where the forecast, the crop profiles and the rules came from; null in runs recorded before
+   * it was kept.
+   */
+  public record Inputs(Forecast forecast, Folder cropProfiles, Folder rules) {}
+
+  /**
+   * The forecast as used.
+   *
+   * @param format {@code csv}, {@code open-meteo}, {@code nws} or {@code met-norway}
+   * @param notes how it was read: interpolation, properties coarser than hourly, a converted zone
+   * @param fetched what {@code forecast fetch} recorded; null for a file not saved by it
+   */
+  public record Forecast(String file, String format, List<String> notes, Fetched fetched) {
+    public Forecast {
+      notes = notes == null ? List.of() : List.copyOf(notes);
+    }
+  }
+
+  /** Where and when a fetched forecast came from; the URL without keys or passwords. */
+  public record Fetched(String source, String url, String fetchedAt, String sha256, boolean unchanged) {}
+
+  /**
+   * A folder of crop profiles or rules.
+   *
+   * @param from {@code option}, {@code farm.yaml}, {@code farm folder} or {@code bundled}
+   * @param sha256 over the files' names and contents, in name order
+   */
+  public record Folder(String from, String folder, String sha256) {}
 
   /** The policy as the farm file wrote it. */
   public record Policy(

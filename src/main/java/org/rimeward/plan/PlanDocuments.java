@@ -64,14 +64,28 @@ public final class PlanDocuments {
     List<PlanDocument.Rule> farmRules = plan.trail().stream().filter(r -> r.blockId() == null)
         .map(r -> rule(r, zone)).toList();
     NightUpdate u = plan.update();
+    PlanDocument.Inputs inputs = inputs(plan.inputs());
     if (u == null) {
-      return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
-          plan.cautions(), farmRules, Timeline.of(plan, blocks));
+      return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, inputs, blocks,
+          water, plan.cautions(), farmRules, Timeline.of(plan, blocks));
     }
-    return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, blocks, water,
-        plan.cautions(), farmRules, Timeline.of(plan, blocks), time(u.now(), zone),
+    return new PlanDocument(plan.farmName(), plan.toolVersion(), night, policy, inputs, blocks,
+        water, plan.cautions(), farmRules, Timeline.of(plan, blocks), time(u.now(), zone),
         NightUpdateView.readings(u, zone),
         NightUpdateView.changes(u));
+  }
+
+  static PlanDocument.Inputs inputs(PlanInputs in) {
+    PlanInputs.Fetched f = in.forecast().fetched();
+    PlanDocument.Fetched fetched = f == null ? null : new PlanDocument.Fetched(f.source(), f.url(),
+        f.fetchedAt().toString(), f.sha256(), f.unchanged());
+    return new PlanDocument.Inputs(
+        new PlanDocument.Forecast(in.forecast().file(), in.forecast().format(), in.forecast().notes(), fetched),
+        folder(in.cropProfiles()), folder(in.rules()));
+  }
+
+  private static PlanDocument.Folder folder(PlanInputs.Folder f) {
+    return new PlanDocument.Folder(f.origin().label(), f.shown(), f.sha256());
   }
 
   private static PlanDocument.Block block(BlockPlan b, ZoneId zone) {

@@ -1,5 +1,7 @@
 package org.rimeward.plan;
 
+import java.time.Instant;
+import java.time.format.DateTimeFormatter;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
@@ -13,7 +15,32 @@ import org.rimeward.units.UnitSystem;
 
 /** The plan as one screen a manager reads at dusk, in the chosen units. */
 public final class PlanText {
+  private static final DateTimeFormatter FETCHED_AT =
+      DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm 'UTC'", Locale.ROOT).withZone(java.time.ZoneOffset.UTC);
+
   private PlanText() {}
+
+  /** One line naming the forecast, profiles and rules used; one more if the forecast was reshaped. */
+  static void inputs(StringBuilder sb, PlanDocument.Inputs in) {
+    if (in == null) {
+      return;
+    }
+    PlanDocument.Fetched fetched = in.forecast().fetched();
+    sb.append("  Inputs: forecast ").append(in.forecast().file()).append(" (")
+        .append(in.forecast().format())
+        .append(fetched == null ? "" : ", fetched " + FETCHED_AT.format(Instant.parse(fetched.fetchedAt())))
+        .append("); crop profiles ").append(folder(in.cropProfiles()))
+        .append("; rules ").append(folder(in.rules())).append('\n');
+    if (!in.forecast().notes().isEmpty()) {
+      sb.append("  Forecast: ").append(String.join("; ", in.forecast().notes())).append('\n');
+    }
+  }
+
+  private static String folder(PlanDocument.Folder f) {
+    String hash = f.sha256().length() > 12 ? f.sha256().substring(0, 12) : f.sha256();
+    return (f.from().equals(PlanInputs.Origin.BUNDLED.label()) ? "bundled"
+        : f.folder() + " (" + f.from() + ")") + " #" + hash;
+  }
 
   public static String render(Plan plan, UnitSystem units, boolean explain) {
     return render(PlanDocuments.of(plan), UnitFormat.of(units), explain, explainer(plan, units));
@@ -51,7 +78,9 @@ public final class PlanText {
         .append(fmt.dayClock(n.sunrise())).append(", coldest ").append(fmt.temp(n.minAirC()))
         .append(" at ").append(fmt.dayClock(n.coldestAt())).append(" (forecast air)\n");
     sb.append("  Decision support only: check thermometers at bud height in each block, and follow"
-        + " local codes, water rights and licensed practice.\n\n");
+        + " local codes, water rights and licensed practice.\n");
+    inputs(sb, plan.inputs());
+    sb.append('\n');
 
     if (plan.blocks().stream().noneMatch(b -> !b.actions().isEmpty())) {
       quiet(sb, plan, fmt);

@@ -59,18 +59,10 @@ public final class Replanner {
 
   /** Reads everything but the readings. */
   public static Replanner load(PlanRequest request, NightPlanner.RuleBookSource rules) {
-    Loaded<Farm> farmFile = FarmLoader.loadWithContent(request.farmDir());
-    Farm farm = farmFile.value();
-    var forecastFile = request.forecastFile() != null ? request.forecastFile() : farm.forecastFile();
-    Loaded<Forecast> forecastRead = ForecastReader.readWithContent(forecastFile, farm.zone());
-    CropLibrary crops = CropLibrary.load(request.cropProfilesDir());
-    RuleBook book = rules.load(request.rulesDir());
-    PlanInputs inputs = NightPlanner.inputsOf(farm, farmFile.content(), forecastFile,
-        forecastRead.content(), request.cropProfilesDir(), book);
-    LocalDate night = request.night() != null ? request.night()
-        : NightPlanner.defaultNight(forecastRead.value(), farm);
-    return new Replanner(farm, forecastRead.value(), crops, book, inputs, night,
-        new NightPlanner(rules));
+    NightPlanner planner = new NightPlanner(rules);
+    NightPlanner.Read r = planner.read(request);
+    LocalDate night = r.night() != null ? r.night() : NightPlanner.defaultNight(r.forecast(), r.farm());
+    return new Replanner(r.farm(), r.forecast(), r.crops(), r.book(), r.inputs(), night, planner);
   }
 
   public Farm farm() {
@@ -111,7 +103,7 @@ public final class Replanner {
     List<PlanInputs.Input> files = new ArrayList<>(inputs.files());
     files.add(new PlanInputs.Input(PlanInputs.Kind.READINGS,
         readings.file().getFileName().toString(), readingsBytes));
-    Plan plan = planner.plan(farm, planned, crops, book, night, new PlanInputs(files));
+    Plan plan = planner.plan(farm, planned, crops, book, night, inputs.withFiles(files));
     boolean stale = c.lastAt().map(t -> Duration.between(t, now).toMinutes()
         > NightUpdate.ReadingsSummary.STALE_AFTER_MIN).orElse(true);
     NightUpdate.ReadingsSummary summary = new NightUpdate.ReadingsSummary(

@@ -22,7 +22,7 @@ public enum Dimension {
       unit("°C", 1, 0, "c", "°c", "degc", "k"), unit("°F", 1 / 1.8, 0, "f", "°f", "degf")),
   SPEED("3 m/s, 7 mph, 11 km/h or 6 kn", 1,
       unit("m/s", 1, 0, "m/s", "ms"), unit("mph", 0.44704, 0, "mph"),
-      unit("km/h", 1 / 3.6, 0, "km/h", "kmh", "kph"), unit("kn", 0.514444, 0, "kn", "kt", "knots")),
+      unit("km/h", 1 / 3.6, 0, "km/h", "kmh", "kph"), unit("kn", 1852.0 / 3600, 0, "kn", "kt", "knots")),
   RATE("3.8 mm/h or 0.15 in/h", 1,
       unit("mm/h", 1, 0, "mm/h", "mm/hr"), unit("in/h", 25.4, 0, "in/h", "in/hr")),
   LENGTH("240 m or 800 ft", 1,

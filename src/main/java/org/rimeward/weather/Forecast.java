@@ -11,11 +11,20 @@ import java.util.Objects;
  * The night's forecast: steps in strictly increasing time order, as read from {@code file}.
  * Whether the steps are close enough together over the night is the planner's check, helped by
  * {@link #covers} and {@link #maxGapWithin}.
+ *
+ * @param format the format the file was recognised as
+ * @param coarse where the source gave one value for longer than an hour and the reader spread it
+ * @param notes what a manager should know about how the file was read (a converted time zone,
+ *     the distance to the forecast point), in plain words
  */
-public record Forecast(Path file, List<ForecastStep> steps) {
+public record Forecast(Path file, ForecastFormat format, List<ForecastStep> steps,
+    List<CoarseSpan> coarse, List<String> notes) {
   public Forecast {
     Objects.requireNonNull(file, "file");
+    Objects.requireNonNull(format, "format");
     steps = List.copyOf(steps);
+    coarse = List.copyOf(coarse);
+    notes = List.copyOf(notes);
     if (steps.isEmpty()) {
       throw new IllegalArgumentException("forecast " + file + " has no steps");
     }
@@ -25,6 +34,11 @@ public record Forecast(Path file, List<ForecastStep> steps) {
             + steps.get(i).time() + " follows " + steps.get(i - 1).time());
       }
     }
+  }
+
+  /** A forecast read from Rimeward's CSV, or built in code. */
+  public Forecast(Path file, List<ForecastStep> steps) {
+    this(file, ForecastFormat.CSV, steps, List.of(), List.of());
   }
 
   public Instant start() {

@@ -58,6 +58,11 @@ public final class ForecastReader {
     return new Loaded<>(read(csv, file, zone), file.bytes());
   }
 
+  /** Parses a file already read and decoded; see {@link ForecastFiles}. */
+  static Forecast parse(Path csv, TextFile file, ZoneId zone) {
+    return read(csv, file, zone);
+  }
+
   private static Forecast read(Path csv, TextFile file, ZoneId zone) {
     CsvTable table = CsvTable.read(file, HEADER_EXAMPLE);
     ForecastColumns columns = ForecastColumns.of(table);

@@ -34,6 +34,8 @@ class LayeringTest {
       new Layer("watch", "org.rimeward.watch.."),
       new Layer("audit", "org.rimeward.audit.."),
       new Layer("plan", "org.rimeward.plan.."),
+      // The one package that talks to the network: below plan, above the domain it reads.
+      new Layer("fetch", "org.rimeward.fetch.."),
       new Layer("rules", "org.rimeward.rules.."),
       new Layer("domain", "org.rimeward.weather..", "org.rimeward.physics..",
           "org.rimeward.crop..", "org.rimeward.farm..", "org.rimeward.water..",

@@ -91,7 +91,10 @@ class BadInputTest {
 
   @Test
   void forecastPathThatIsAFolderOrADevice() throws IOException {
-    assertRefused(plan("--forecast", tmp.toString()), tmp + ": is a folder, not a forecast file");
+    // A folder is where 'forecast fetch' saves; one with no fetched forecast says so.
+    Path empty = Files.createDirectories(tmp.resolve("no-forecasts"));
+    assertRefused(plan("--forecast", empty.toString()), empty + ": no fetched forecast in this folder",
+        "rimeward forecast fetch");
   }
 
   @Test

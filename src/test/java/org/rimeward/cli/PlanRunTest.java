@@ -109,7 +109,7 @@ class PlanRunTest {
   @CsvSource(delimiter = '|', value = {
       "missing column | forecast.csv | dew_point_c | dewpoint | forecast.csv",
       "malformed number | forecast.csv | T07:00-07:00,-1.5, | T07:00-07:00,minus1.5, | forecast.csv:17",
-      "gap in the night | forecast.csv | 2026-04-15T02:00-07:00,-1.5,-6.0,1.2,0,0\\n | | minutes pass between line",
+      "gap in the night | forecast.csv | 2026-04-15T02:00-07:00,-1.5,-6.0,1.2,0,0\\n2026-04-15T03:00-07:00,-2.1,-6.2,0.8,0,0\\n2026-04-15T04:00-07:00,-2.6,-6.3,0.6,0,0\\n | | 240 minutes pass between line",
       "times out of order | forecast.csv | 2026-04-15T03:00 | 2026-04-15T01:30 | forecast.csv:13",
       "duplicate time | forecast.csv | 2026-04-15T03:00 | 2026-04-15T02:00 | forecast.csv:13",
       "fahrenheit in a celsius column | forecast.csv | 06:00-07:00,-3.2, | 06:00-07:00,47.5, | air_temp_f",
