@@ -9,8 +9,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-@Command(name = "verify", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "verify",
     description = "Check the whole hash chain of the audit trail and name the first record that"
         + " was changed, removed or added outside rimeward. Exit code "
         + AuditCommand.CHAIN_BROKEN + " when the chain is broken.")

@@ -17,9 +17,11 @@ import org.rimeward.plan.PlanText;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.Spec;
 
-@Command(name = "plan", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "plan",
     description = {"The nightly decision run: for every block, whether tonight's freeze threatens"
         + " its buds, when to start and stop sprinkling, when covers go on and come off, and"
         + " whether the water sources carry it all, with the rules that led there."},
@@ -35,11 +37,10 @@ final class PlanCommand implements Callable<Integer> {
   enum Format { TEXT, JSON, CSV }
 
   @ParentCommand RimewardCommand root;
+  @Spec CommandSpec spec;
   @Mixin DataFolders folders;
-
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml and the forecast (default: the current folder).")
-  Path farm;
+  @Mixin AuditOptions audit = new AuditOptions();
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @Option(names = "--forecast", paramLabel = "FILE",
       description = "Forecast CSV to use instead of the one the farm file names.")
@@ -60,33 +61,23 @@ final class PlanCommand implements Callable<Integer> {
       description = "Exit 3 when any block needs protection, for a scheduled job that alerts.")
   boolean exitCodeOnAction;
 
-  @Option(names = "--audit", paramLabel = "FILE",
-      description = "Audit database to record the run in (default: <farm>/audit.db).")
-  Path audit;
-
-  @Option(names = "--no-audit", description = "Do not record this run in the audit trail.")
-  boolean noAudit;
 
   @Override
   public Integer call() {
-    if (noAudit && audit != null) {
-      throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
-          + " records nothing, so it has no file to record in");
-    }
+    boolean recording = audit.recording();
     Instant ranAt = root.clock.instant();
-    Plan plan = new NightPlanner().plan(new PlanRequest(farm, forecast, folders.cropProfiles(),
-        folders.rules(), night));
+    Plan plan = new NightPlanner().plan(new PlanRequest(audit.farm(), forecast,
+        folders.cropProfiles(), folders.rules(), night));
     var out = root.spec.commandLine().getOut();
     switch (format) {
       case JSON -> out.print(PlanJson.toText(plan));
       case CSV -> out.print(PlanCsv.render(plan));
-      default -> out.print(PlanText.render(plan, root.global.units(), explain));
+      default -> out.print(PlanText.render(plan, UnitsOption.of(spec), explain));
     }
     out.flush();
-    if (!noAudit) {
+    if (recording) {
       // --farm may name the farm file itself; the trail then sits beside it.
-      Path db = audit != null ? audit : AuditStore.fileFor(farm);
-      try (AuditStore store = AuditStore.open(db)) {
+      try (AuditStore store = AuditStore.open(audit.file())) {
         store.appendRun(RunRecorder.toRecord(plan, ranAt));
       } catch (AuditUnavailableException e) {
         var err = root.spec.commandLine().getErr();

@@ -10,7 +10,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-@Command(name = "list", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "list",
     description = "List the crops and their varieties, the number of stages and each file.")
 final class ProfileListCommand implements Runnable {
   @Spec CommandSpec spec;

@@ -320,7 +320,7 @@ class AuditTrailCommandTest {
     ProfileEdit e = new ProfileEdit(AT, "tester", "apple.yaml", "apple", "rome-beauty",
         "tight-cluster", "t10", -3.889, -3.0, "bud cuts");
     ProfileCommand.AuditTarget target = new ProfileCommand.AuditTarget();
-    target.audit = db;
+    target.options.auditFile.audit = db;
     // A trail opened read-only refuses the append as an unwritable file does.
     try (AuditStore readOnly = AuditStore.openReadOnly(db)) {
       int code = ProfileCommand.recorded(List.of(e), target, readOnly, set.getCommandSpec());
