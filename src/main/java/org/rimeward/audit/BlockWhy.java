@@ -89,7 +89,7 @@ public final class BlockWhy {
   /** Forecast lines a rule saw: in its moments ({@code forecast_line}) and its {@code ...Line} values. */
   private static void collectLines(JsonNode n, String key, Map<Integer, String> out) {
     if (n.isObject()) {
-      for (Iterator<Map.Entry<String, JsonNode>> it = n.fields(); it.hasNext();) {
+      for (Iterator<Map.Entry<String, JsonNode>> it = n.properties().iterator(); it.hasNext();) {
         Map.Entry<String, JsonNode> e = it.next();
         collectLines(e.getValue(), e.getKey(), out);
       }

@@ -340,7 +340,7 @@ public final class Replay {
     if (!n.path("id").isTextual()) {
       return null;
     }
-    for (Iterator<Map.Entry<String, JsonNode>> it = n.path("values").fields(); it.hasNext();) {
+    for (Iterator<Map.Entry<String, JsonNode>> it = n.path("values").properties().iterator(); it.hasNext();) {
       Map.Entry<String, JsonNode> e = it.next();
       if (e.getKey().endsWith("sourceId") && e.getValue().isTextual()) {
         return n.get("id").asText() + "@" + e.getValue().asText();

@@ -21,13 +21,13 @@ import org.rimeward.farm.Farm;
 import org.rimeward.farm.FarmLoader;
 import org.rimeward.io.BadInputException;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "action", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "action",
     description = {"Record what the crew actually did on a block: sprinkling-on, sprinkling-off,"
         + " covers-on or covers-off, with the time, who and a note. It goes into the audit trail,"
         + " hash-chained like the plans, so 'audit why' and 'audit show' can put what was done"
@@ -61,20 +61,16 @@ final class ActionCommand implements Callable<Integer> {
   @Option(names = "--by", paramLabel = "NAME", description = "Who did it (default: the login name).")
   String by;
 
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml (default: the current folder).")
-  Path farm;
+  @Mixin FarmOption farmOption = new FarmOption();
 
-  @Option(names = "--audit", paramLabel = "FILE",
-      description = "Audit database to record in (default: <farm>/audit.db).")
-  Path audit;
+  @Mixin AuditFileOption auditFile = new AuditFileOption();
 
   @Override
   public Integer call() throws Exception {
     CrewAction.Kind k = CrewAction.Kind.ofWord(kind.trim().toLowerCase(Locale.ROOT)).orElseThrow(() ->
         new BadInputException("KIND: '" + kind + "' is not an action; give sprinkling-on,"
             + " sprinkling-off, covers-on or covers-off"));
-    Farm f = FarmLoader.load(farm);
+    Farm f = FarmLoader.load(farmOption.farm());
     if (f.blocks().stream().noneMatch(b -> b.id().equals(block))) {
       throw new BadInputException("BLOCK: '" + block + "' is not a block of " + f.origin()
           + "; blocks: " + String.join(", ", f.blocks().stream().map(b -> b.id()).toList()));
@@ -88,7 +84,7 @@ final class ActionCommand implements Callable<Integer> {
     String who = by != null && !by.isBlank() ? by.strip() : System.getProperty("user.name", "unknown");
     // The evening the action belongs to: a 02:00 action is part of the night before.
     LocalDate night = when.atZone(f.zone()).minusHours(12).toLocalDate();
-    Path db = audit != null ? audit : AuditStore.fileFor(farm);
+    Path db = auditFile.file(farmOption.farm());
     var out = spec.commandLine().getOut();
     var err = spec.commandLine().getErr();
     try (AuditStore store = AuditStore.open(db)) {

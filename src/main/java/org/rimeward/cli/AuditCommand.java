@@ -8,12 +8,13 @@ import org.rimeward.audit.AuditStore;
 import org.rimeward.audit.AuditUnavailableException;
 import org.rimeward.io.BadInputException;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "audit", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "audit",
     description = "Look into the audit trail: every nightly plan and crop-profile edit, recorded"
         + " append-only and hash-chained in <farm>/audit.db.",
     subcommands = {AuditListCommand.class, AuditShowCommand.class, AuditExportCommand.class,
@@ -37,23 +38,18 @@ final class AuditCommand implements Runnable {
 
   /** Where the trail is: {@code --audit FILE}, else {@code <farm>/audit.db}. */
   static final class Location {
-    @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-        description = "Farm folder; its audit.db is read (default: the current folder).")
-    Path farm;
-
-    @Option(names = "--audit", paramLabel = "FILE",
-        description = "Audit database to read instead of <farm>/audit.db.")
-    Path audit;
+    @Mixin FarmOption farmOption = new FarmOption();
+    @Mixin AuditFileOption auditFile = new AuditFileOption();
 
     Path file() {
-      return audit != null ? audit : AuditStore.fileFor(farm);
+      return auditFile.file(farmOption.farm());
     }
 
     /** Opens the existing trail for reading; a missing file is the user's to fix. */
     AuditStore openForReading() {
       Path f = file();
       if (!Files.isRegularFile(f)) {
-        throw new BadInputException((audit != null ? "--audit" : "--farm") + ": no audit database"
+        throw new BadInputException((auditFile.given() ? "--audit" : "--farm") + ": no audit database"
             + " at " + f + "; runs are recorded there by 'rimeward plan'. Check the folder, or"
             + " name the file with --audit.");
       }
@@ -63,8 +59,7 @@ final class AuditCommand implements Runnable {
 
   /** The display units chosen with the inherited {@code --units} option. */
   static org.rimeward.units.UnitSystem units(CommandSpec spec) {
-    return spec.root().userObject() instanceof RimewardCommand r ? r.global.units()
-        : org.rimeward.units.UnitSystem.METRIC;
+    return UnitsOption.of(spec);
   }
 
   /**

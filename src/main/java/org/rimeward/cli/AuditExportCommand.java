@@ -14,8 +14,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "export", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "export",
     description = "Export one recorded run for an insurer or a report: JSON (as 'show --json') or"
         + " CSV with one row per block action, with what the crew recorded beside it (done_start,"
         + " done_stop).")

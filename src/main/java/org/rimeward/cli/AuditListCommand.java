@@ -18,8 +18,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "list", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "list",
     description = "List recorded runs, newest first: id, time recorded, night, and how many blocks"
         + " needed protection.")
 final class AuditListCommand implements Callable<Integer> {

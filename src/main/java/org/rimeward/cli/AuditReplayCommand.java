@@ -16,8 +16,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "replay", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "replay",
     description = {"Plan a recorded night again from the inputs the trail kept (the farm file,"
         + " the forecast, the crop profiles and the rules, byte for byte) and compare the new plan"
         + " with the recorded one. With --current-rules or --current-profiles, today's rules or"

@@ -20,12 +20,12 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "show", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "show",
     description = "Show one recorded run: the night, each block's status, risk and actions, the"
         + " rules that fired, the cautions, and the hash of every input.")
 final class AuditShowCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
   @Mixin AuditCommand.Location where = new AuditCommand.Location();
 
   @Parameters(paramLabel = "RUN", description = "Run id, or its first characters if unique.")

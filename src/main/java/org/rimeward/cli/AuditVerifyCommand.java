@@ -16,8 +16,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "verify", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "verify",
     description = {"Check the whole hash chain of the audit trail and name the first record that"
         + " was changed, removed or added outside rimeward. Exit code "
         + AuditCommand.CHAIN_BROKEN + " when the chain is broken.",

@@ -18,8 +18,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "why", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "why",
     description = {"Why protection started, or did not, on one block one night: the rules that"
         + " fired for it in firing order with the numbers each saw, the farm-wide rules about its"
         + " water source, the forecast lines and crop-profile values those numbers came from, and"
@@ -29,6 +28,7 @@ import picocli.CommandLine.Spec;
             + " values each rule saw and the hash of every input."})
 final class AuditWhyCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
   @Mixin AuditCommand.Location where = new AuditCommand.Location();
 
   @Parameters(paramLabel = "BLOCK", description = "Block id, as in farm.yaml.")

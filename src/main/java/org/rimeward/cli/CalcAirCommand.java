@@ -11,17 +11,19 @@ import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "air", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "air",
     description = {"Humidity of the air: dew point, frost point, relative humidity, vapour pressure,"
         + " wet-bulb and ice-bulb temperature (WMO ventilated-psychrometer equation).",
         "Decision support: the wet bulb is what sprinkler start and stop rules read."},
     footer = {"", Cautions.HELP_FOOTER})
 final class CalcAirCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @Option(names = "--temp", required = true, paramLabel = "T",
       description = "Air temperature: " + CalcOutput.TEMP_UNITS + ".")

@@ -7,17 +7,19 @@ import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "bud", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "bud",
     description = {"Temperature of a dry, unprotected flower bud under the night sky: how far it"
         + " radiates below the air (about 1-3 °C on a clear calm night, little in wind or overcast).",
         "Decision support: an estimate for a 5 mm bud; measure at bud height where you can."},
     footer = {"", Cautions.HELP_FOOTER})
 final class CalcBudCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @Option(names = "--temp", required = true, paramLabel = "T", description = "Air temperature: " + CalcOutput.TEMP_UNITS + ".")
   String temp;

@@ -5,7 +5,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "calc", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "calc",
     description = {"One frost-night calculation at a time: air humidity and wet bulb, sun times,"
         + " bud temperature, sprinkler rate, bud kill.",
         "Decision support: check the numbers against thermometers in the block."},

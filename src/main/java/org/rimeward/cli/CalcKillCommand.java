@@ -6,17 +6,19 @@ import java.util.Map;
 import org.rimeward.physics.KillCurve;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "kill", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "kill",
     description = {"Expected bud kill at a bud temperature, from the stage's 10 %% and 90 %% kill"
         + " temperatures (30-minute exposure, as in the WSU/MSU critical-temperature tables).",
         "Decision support: the curve between the two published points is an interpolation."},
     footer = {"", Cautions.HELP_FOOTER})
 final class CalcKillCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @Option(names = "--t10", required = true, paramLabel = "T", description = "10 %% kill temperature: " + CalcOutput.TEMP_UNITS + ".")
   String t10;

@@ -17,8 +17,7 @@ final class CalcOutput {
   private CalcOutput() {}
 
   static UnitSystem units(CommandSpec spec) {
-    Object root = spec.root().userObject();
-    return root instanceof RimewardCommand r ? r.global.units() : UnitSystem.METRIC;
+    return UnitsOption.of(spec);
   }
 
   static double temperature(String text, String option, UnitSystem units) {

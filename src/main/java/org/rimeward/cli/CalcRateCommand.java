@@ -19,11 +19,12 @@ import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "rate", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "rate",
     description = {"Over-plant sprinkling: the application rate that keeps iced buds at 0 °C at an air"
         + " temperature (--temp), or the lowest air temperature a rate protects to (--rate).",
         "Energy balance of iced 10 mm twigs in the wind, checked against the UF/IFAS and MSU rate"
@@ -37,6 +38,7 @@ final class CalcRateCommand implements Runnable {
   static final String DEFAULT_WIND_HEIGHT = "10 m";
 
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @ArgGroup(exclusive = true, multiplicity = "1")
   Target target;

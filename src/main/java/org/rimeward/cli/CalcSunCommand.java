@@ -18,7 +18,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "sun", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "sun",
     description = {"Civil dawn, sunrise, sunset and civil dusk for one local date (NOAA solar"
         + " calculator method), in the local time of the zone, daylight saving included.",
         "Decision support: frost risk is usually greatest around sunrise."},

@@ -5,8 +5,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "minimum", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "minimum",
     description = {"The site's own forecast of the night's minimum (FAO 2005 ch. 6, after Allen"
         + " 1957): fitted to the farm station's history of clear calm nights, read two hours"
         + " after sunset.",

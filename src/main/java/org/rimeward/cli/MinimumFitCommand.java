@@ -20,11 +20,12 @@ import org.rimeward.weather.Reading;
 import org.rimeward.weather.Readings;
 import org.rimeward.weather.ReadingsReader;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "fit", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "fit",
     description = {"Fits Tmin = a·T0 + b·Td0 + c by least squares to the radiation nights of a"
         + " station history (the readings format, any length), and writes"
         + " <farm>/site-minimum.yaml with the history's hash and dates.",
@@ -35,10 +36,9 @@ import picocli.CommandLine.Spec;
         + " reason is printed, nothing is written).", "", Cautions.HELP_FOOTER})
 final class MinimumFitCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml (default: the current folder).")
-  Path farm;
+  @Mixin FarmOption farmOption = new FarmOption();
 
   @Option(names = "--history", paramLabel = "FILE", required = true,
       description = "Station history CSV in the readings format (time, air_temp_c, dew_point_c, ...).")
@@ -61,7 +61,7 @@ final class MinimumFitCommand implements Runnable {
       throw new BadInputException("--min-nights: " + minNights + " is too few to fit three"
           + " coefficients and judge the fit; give 5 or more");
     }
-    Farm f = FarmLoader.load(farm);
+    Farm f = FarmLoader.load(farmOption.farm());
     Readings all = ReadingsReader.read(history, f.zone());
     List<String> stations = all.stations();
     String id = station != null ? station : stations.size() == 1 ? stations.get(0) : null;

@@ -1,6 +1,5 @@
 package org.rimeward.cli;
 
-import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.Locale;
 import java.util.Map;
@@ -9,22 +8,21 @@ import org.rimeward.minimum.SiteMinimumFile;
 import org.rimeward.minimum.SiteMinimumModel;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "predict", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "predict",
     description = {"Tonight's minimum from the site model (<farm>/site-minimum.yaml), given the air"
         + " temperature and dew point two hours after sunset, with a 95 %% prediction interval.",
         "Valid on clear calm nights only."},
     footer = {"", Cautions.HELP_FOOTER})
 final class MinimumPredictCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml and site-minimum.yaml (default: the current folder).")
-  Path farm;
+  @Mixin FarmOption farmOption = new FarmOption();
 
   @Option(names = "--temp", required = true, paramLabel = "T0",
       description = "Air temperature two hours after sunset: " + CalcOutput.TEMP_UNITS + ".")
@@ -46,7 +44,8 @@ final class MinimumPredictCommand implements Runnable {
       throw new org.rimeward.io.BadInputException("--dew-point: " + dewPoint + " is above --temp "
           + temp + "; the dew point cannot exceed the air temperature");
     }
-    SiteMinimumModel m = SiteMinimumFile.read(SiteMinimumFile.in(FarmLoader.load(farm).folder()));
+    SiteMinimumModel m = SiteMinimumFile.read(SiteMinimumFile.in(
+        FarmLoader.load(farmOption.farm()).folder()));
     double min = m.minAirC(t0, td0);
     double half = m.halfWidthC(t0, td0);
     boolean inside = m.withinFit(t0, td0);

@@ -20,9 +20,11 @@ import org.rimeward.units.UnitFormat;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.Spec;
 
-@Command(name = "plan", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "plan",
     description = {"The nightly decision run: for every block, whether tonight's freeze threatens"
         + " its buds, when to start and stop sprinkling, when covers go on and come off, and"
         + " whether the water sources carry it all, with the rules that led there."},
@@ -41,11 +43,10 @@ final class PlanCommand implements Callable<Integer> {
   enum Format { TEXT, JSON, CSV, HTML }
 
   @ParentCommand RimewardCommand root;
+  @Spec CommandSpec spec;
   @Mixin DataFolders folders;
-
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml and the forecast (default: the current folder).")
-  Path farm;
+  @Mixin AuditOptions audit = new AuditOptions();
+  @Mixin UnitsOption unitsOption = new UnitsOption();
 
   @Option(names = "--forecast", paramLabel = "FILE",
       description = "Forecast to use instead of the one the farm file names: Rimeward's CSV, or an"
@@ -73,13 +74,6 @@ final class PlanCommand implements Callable<Integer> {
       description = "Exit 3 when any block needs protection, for a scheduled job that alerts.")
   boolean exitCodeOnAction;
 
-  @Option(names = "--audit", paramLabel = "FILE",
-      description = "Audit database to record the run in (default: <farm>/audit.db).")
-  Path audit;
-
-  @Option(names = "--no-audit", description = "Do not record this run in the audit trail.")
-  boolean noAudit;
-
   @Option(names = "--readings", paramLabel = "FILE", description = "The station's readings CSV:"
       + " re-plan the rest of the night from now, readings replacing the forecast up to now and"
       + " correcting it after (see the README).")
@@ -95,12 +89,10 @@ final class PlanCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if (noAudit && audit != null) {
-      throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
-          + " records nothing, so it has no file to record in");
-    }
+    boolean recording = audit.recording();
     OutputFile.check(output);
     Instant ranAt = root.clock.instant();
+    Path farm = audit.farm();
     PlanRequest request = new PlanRequest(farm, forecast, folders.cropProfiles, folders.rules,
         night);
     if (readings == null && (now != null || station != null)) {
@@ -108,24 +100,22 @@ final class PlanCommand implements Callable<Integer> {
           + " with --readings FILE; give the station's readings, or leave it out");
     }
     Plan plan = readings == null ? new NightPlanner().plan(request)
-        : NightReplan.run(request, readings, now, station, ranAt,
-            audit != null ? audit : AuditStore.fileFor(farm));
+        : NightReplan.run(request, readings, now, station, ranAt, audit.file());
     var out = root.spec.commandLine().getOut();
+    var units = UnitsOption.of(spec);
     String text = switch (format) {
       case JSON -> PlanJson.toText(plan);
       case CSV -> PlanCsv.render(plan);
       case HTML -> NightPage.html(NightPage.of(PlanDocuments.canonical(plan),
-          UnitFormat.of(root.global.units()), PlanText.explainer(plan, root.global.units()),
-          java.util.Map.of(), null));
-      default -> PlanText.render(plan, root.global.units(), explain);
+          UnitFormat.of(units), PlanText.explainer(plan, units), java.util.Map.of(), null));
+      default -> PlanText.render(plan, units, explain);
     };
     OutputFile.write(out, output, text, "the plan");
     out.flush();
     warnIfStale(plan, ranAt);
-    if (!noAudit) {
+    if (recording) {
       // --farm may name the farm file itself; the trail then sits beside it.
-      Path db = audit != null ? audit : AuditStore.fileFor(farm);
-      try (AuditStore store = AuditStore.open(db)) {
+      try (AuditStore store = AuditStore.open(audit.file())) {
         store.appendRun(RunRecorder.toRecord(plan, ranAt));
         store.settlePendingChanges().forEach(l -> root.spec.commandLine().getErr()
             .println("rimeward: " + l));

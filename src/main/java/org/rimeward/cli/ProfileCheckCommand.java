@@ -10,7 +10,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-@Command(name = "check", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "check",
     description = "Check every crop profile file; exit 2 and list the problems if any.")
 final class ProfileCheckCommand implements Runnable {
   @Spec CommandSpec spec;

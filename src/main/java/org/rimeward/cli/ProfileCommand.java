@@ -16,12 +16,13 @@ import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "profile", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "profile",
     description = "Crop profiles: critical bud temperatures by stage, per crop and variety.",
     subcommands = {ProfileListCommand.class, ProfileShowCommand.class, ProfileCheckCommand.class,
         ProfileNewVarietyCommand.class, ProfileSetCommand.class},
@@ -136,8 +137,7 @@ final class ProfileCommand implements Runnable {
       + " (the next command confirms it).";
 
   static UnitSystem units(CommandSpec spec) {
-    Object root = spec.root().userObject();
-    return root instanceof RimewardCommand r ? r.global.units() : UnitSystem.METRIC;
+    return UnitsOption.of(spec);
   }
 
   static String temp(double c, UnitSystem units) {
@@ -159,18 +159,10 @@ final class ProfileCommand implements Runnable {
    * with {@code --no-audit}.
    */
   static final class AuditTarget {
-    /** The farm folder, from the command's {@link Folder}; set before use. */
-    Path farm = Path.of(".");
-
-    @Option(names = "--audit", paramLabel = "FILE",
-        description = "Audit database to record the edit in instead of <farm>/audit.db.")
-    Path audit;
-
-    @Option(names = "--no-audit", description = "Do not record the edit in the audit trail.")
-    boolean noAudit;
+    @Mixin AuditOptions options = new AuditOptions();
 
     Path file() {
-      return audit != null ? audit : AuditStore.fileFor(farm);
+      return options.file();
     }
 
     /**
@@ -178,11 +170,7 @@ final class ProfileCommand implements Runnable {
      * with {@code --no-audit}.
      */
     AuditStore open(CommandSpec spec) {
-      if (noAudit) {
-        if (audit != null) {
-          throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
-              + " records nothing, so it has no file to record in");
-        }
+      if (!options.recording()) {
         return null;
       }
       try {

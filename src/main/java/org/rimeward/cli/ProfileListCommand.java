@@ -13,7 +13,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-@Command(name = "list", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "list",
     description = "List the crops and their varieties (hardier or more tender than the crop's"
         + " table), the number of stages and each file.")
 final class ProfileListCommand implements Runnable {

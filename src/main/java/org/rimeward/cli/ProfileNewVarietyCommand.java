@@ -13,13 +13,13 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "new-variety", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "new-variety",
     description = "Add a variety to a crop file. It inherits the crop's stages; --offset makes it"
         + " uniformly hardier (positive) or more tender (negative).",
     footer = {"", ProfileCommand.EDIT_FOOTER})
 final class ProfileNewVarietyCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
   @Mixin ProfileCommand.AuditTarget auditTarget = new ProfileCommand.AuditTarget();
 

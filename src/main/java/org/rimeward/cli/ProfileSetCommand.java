@@ -13,11 +13,12 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "set", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "set",
     description = "Set a variety's T10 and/or T90 for one stage, as an override kept with its note.",
     footer = {"", ProfileCommand.EDIT_FOOTER})
 final class ProfileSetCommand implements java.util.concurrent.Callable<Integer> {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
   @Mixin ProfileCommand.AuditTarget auditTarget = new ProfileCommand.AuditTarget();
 

@@ -16,11 +16,12 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-@Command(name = "show", mixinStandardHelpOptions = true, versionProvider = RimewardCommand.Version.class,
+@Command(name = "show",
     description = "Show a crop's or variety's critical temperatures after inheritance, with where"
         + " each value came from.")
 final class ProfileShowCommand implements Runnable {
   @Spec CommandSpec spec;
+  @Mixin UnitsOption unitsOption = new UnitsOption();
   @Mixin ProfileCommand.Folder folder = new ProfileCommand.Folder();
 
   @Parameters(index = "0", paramLabel = "CROP[/VARIETY]", description = "e.g. apple or apple/rome-beauty")

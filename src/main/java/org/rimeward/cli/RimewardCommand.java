@@ -3,13 +3,14 @@ package org.rimeward.cli;
 import java.time.Clock;
 import java.util.Objects;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.ScopeType;
 import picocli.CommandLine.IVersionProvider;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "rimeward", mixinStandardHelpOptions = true,
+@Command(name = "rimeward", mixinStandardHelpOptions = true, scope = ScopeType.INHERIT,
     versionProvider = RimewardCommand.Version.class,
     description = "Frost-protection decision support for orchards, vineyards and berry fields.",
     subcommands = {PlanCommand.class, ProfileCommand.class, AuditCommand.class, CalcCommand.class,
@@ -17,6 +18,7 @@ import picocli.CommandLine.Spec;
     footer = {"", Cautions.HELP_FOOTER})
 public final class RimewardCommand implements Runnable {
   @Mixin GlobalOptions global = new GlobalOptions();
+  @Mixin UnitsOption units = new UnitsOption();
   @Spec CommandSpec spec;
 
   /** The clock that stamps recorded runs and edits; fixed in tests for repeatable records. */

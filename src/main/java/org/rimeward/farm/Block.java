@@ -104,16 +104,4 @@ public record Block(
   public SourceRef stageRef() {
     return lineOf("stage");
   }
-
-  public Optional<String> varietyIfGiven() {
-    return Optional.ofNullable(variety);
-  }
-
-  public boolean hasSprinklers() {
-    return sprinklers.isPresent();
-  }
-
-  public boolean hasCovers() {
-    return covers.isPresent();
-  }
 }

@@ -147,7 +147,7 @@ public final class Yaml {
       int line = loc.getLineNr();
       int col = loc.getColumnNr();
       int start = (int) loc.getCharOffset();
-      String anchor = p instanceof YAMLParser y ? y.getCurrentAnchor() : null;
+      Object anchor = p.getObjectId();
       Node node;
       if (t == JsonToken.START_OBJECT) {
         node = map(line, col, start);
@@ -180,7 +180,7 @@ public final class Yaml {
         throw BadInputException.at(label + ":" + line, "unexpected YAML structure here");
       }
       if (anchor != null) {
-        anchors.put(anchor, node);
+        anchors.put(anchor.toString(), node);
       }
       return node;
     }

@@ -363,7 +363,7 @@ public record PlanDocument(
       if (values == null) {
         return Optional.empty();
       }
-      for (var it = values.fields(); it.hasNext();) {
+      for (var it = values.properties().iterator(); it.hasNext();) {
         var e = it.next();
         if ((e.getKey().equals("sourceId") || e.getKey().endsWith(".sourceId"))
             && e.getValue().isTextual()) {

@@ -2,11 +2,7 @@ package org.rimeward.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.File;
-import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
 
 /** Runs target/rimeward.jar in its own JVM, as a grower would, after the build packaged it. */
@@ -17,25 +13,14 @@ class PackagedJarIT {
     return javaIn(null, args);
   }
 
+  /** The jar run to its end, or failed after two minutes: its output goes to files, not pipes. */
   static Run javaIn(java.nio.file.Path dir, String... args) throws Exception {
-    String jar = java.nio.file.Path.of(System.getProperty("rimeward.jar", "target/rimeward.jar"))
-        .toAbsolutePath().toString();
-    List<String> cmd = new ArrayList<>();
-    cmd.add(System.getProperty("java.home") + File.separator + "bin" + File.separator + "java");
-    cmd.add("-jar");
-    cmd.add(jar);
-    cmd.addAll(List.of(args));
-    ProcessBuilder pb = new ProcessBuilder(cmd);
+    ProcessBuilder pb = new ProcessBuilder(ChildProcess.jar(List.of(), args));
     if (dir != null) {
       pb.directory(dir.toFile());
     }
-    Process p = pb.start();
-    p.getOutputStream().close();
-    byte[] out = p.getInputStream().readAllBytes();
-    byte[] err = p.getErrorStream().readAllBytes();
-    assertThat(p.waitFor(120, TimeUnit.SECONDS)).isTrue();
-    return new Run(p.exitValue(), new String(out, StandardCharsets.UTF_8),
-        new String(err, StandardCharsets.UTF_8));
+    ChildProcess.Run r = ChildProcess.run(pb, 120);
+    return new Run(r.exit(), r.out(), r.err());
   }
 
   @Test
@@ -93,11 +78,10 @@ class PackagedJarIT {
       pb.environment().put("RIMEWARD_JAR", jar);
       pb.environment().put("XDG_CACHE_HOME", tmp.toString());
       pb.environment().put("JAVA_HOME", System.getProperty("java.home"));
-      Process p = pb.start();
-      String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-      String err = new String(p.getErrorStream().readAllBytes(), StandardCharsets.UTF_8);
-      assertThat(p.waitFor(120, TimeUnit.SECONDS)).isTrue();
-      assertThat(p.exitValue()).as(out + err).isEqualTo(2);
+      ChildProcess.Run r = ChildProcess.run(pb, 120);
+      String out = r.out();
+      String err = r.err();
+      assertThat(r.exit()).as(out + err).isEqualTo(2);
       assertThat(err).startsWith("rimeward: ").contains("no-such-farm");
       assertThat(out).isEmpty();
     }

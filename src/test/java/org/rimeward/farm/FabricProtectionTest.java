@@ -9,7 +9,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 class FabricProtectionTest {
-  // 1 oz/yd² = 33.906 g/m² (NIST SP 811 B.8; frost-reference §3 conversion row, COMPUTED).
+  // 1 oz/yd² = 33.906 g/m² (NIST SP 811 B.8; docs/reference/check-values.md §3 conversion row, COMPUTED).
   private static final double G_PER_OZ = 33.905747;
 
   @ParameterizedTest(name = "{0} oz/yd² -> {1} °F ({2})")

@@ -20,7 +20,7 @@ class AtmosphereTest {
 
   @ParameterizedTest(name = "z = {0} m")
   @CsvSource({
-      // Elevation table: P and gamma from FAO-56 Eq. 7 and 8 (COMPUTED in the shared reference,
+      // Elevation table: P and gamma from FAO-56 Eq. 7 and 8 (COMPUTED in docs/reference/check-values.md §5.1,
       // consistent with FAO-56 Table 2.2, whose gamma column is rounded to 0.001).
       "0, 101.30, 0.067", "500, 95.53, 0.064", "1000, 90.02, 0.060", "2000, 79.79, 0.053",
       "3000, 70.51, 0.047"})

@@ -19,7 +19,7 @@ class SunCalculatorTest {
   void meeusExample25aSolarCoordinates() {
     // Meeus, Astronomical Algorithms, Example 25.a: 1992 Oct 13.0 TD (JDE 2448908.5):
     // apparent longitude 199.90895°, declination -7.78507°, right ascension 198.38083°
-    // (values from memory, reproduced by the NOAA formulas in the shared reference 6.2).
+    // (values from memory, reproduced by the NOAA formulas in docs/reference/check-values.md §6.2).
     SolarPosition p = SolarPosition.at(2448908.5);
     assertThat(p.apparentLongitudeDeg()).isCloseTo(199.90895, within(1e-4));
     assertThat(p.declinationDeg()).isCloseTo(-7.78507, within(1e-4));
@@ -59,7 +59,7 @@ class SunCalculatorTest {
 
   @Test
   void wenatcheeSpringDayInLocalDaylightTime() {
-    // NOAA-algorithm values COMPUTED in the shared reference 6.3 (not published): 06:11.5 / 19:51.6 PDT.
+    // NOAA-algorithm values COMPUTED in docs/reference/check-values.md §6.3 (not published): 06:11.5 / 19:51.6 PDT.
     SolarTimes t = SunCalculator.times(47.4235, -120.3103, LocalDate.of(2024, 4, 15),
         ZoneId.of("America/Los_Angeles"));
     assertWithinMinutes(t.sunrise().orElseThrow(), LocalDateTime.of(2024, 4, 15, 6, 11, 30), 1);

@@ -34,7 +34,7 @@ class NightPlannerTest {
       """;
 
   /**
-   * A start and a stop worked by hand. The rows pair air and dew point from the shared reference's
+   * A start and a stop worked by hand. The rows pair air and dew point from docs/reference/check-values.md's
    * psychrometric table (§5.5, WMO ventilated psychrometer at 101.325 kPa, COMPUTED there):
    * 0 °C / Td −3.04 → Tw −1.12; −2 °C / Td −6.74 → Tw −3.54; 2 °C / Td −4.96 → Tw −0.50;
    * 5 °C / Td −4.57 → Tw +1.39. Overcast and a steady breeze keep the bud's radiative depression
@@ -189,5 +189,26 @@ class NightPlannerTest {
     assertThatThrownBy(() -> new NightPlanner().plan(new PlanRequest(farm, null, TestFarms.CROPS,
         TestFarms.RULES, java.time.LocalDate.of(2026, 4, 15))))
         .isInstanceOf(BadInputException.class).hasMessageContaining("ends at");
+  }
+
+  /**
+   * Sprinkling that cannot stop before the forecast ends: the forecast reaches an hour past
+   * sunrise (so the window check passes) but stays at −3 °C with a −7 °C dew point, so the wet
+   * bulb never climbs back over the stop threshold. The plan must refuse to guess a stop time,
+   * and say so with this message, not the window's "ends at ..., before ... (an hour after
+   * sunrise)" one that shares its first words.
+   */
+  @Test
+  void aStopBeyondTheForecastIsRefusedWithItsOwnMessage() {
+    double[] air = {6, 4, 2, 0, -2, -3, -3, -3, -3, -3, -3, -3, -3, -3};
+    int n = air.length;
+    Path farm = TestFarms.oneBlock(tmp, APPLE_BLOCK, Forecasts.hourly("2026-04-14", 20, "-07:00",
+        air, Forecasts.fill(n, -7.0), Forecasts.fill(n, 1.0), Forecasts.fill(n, 0)));
+    assertThatThrownBy(() -> TestFarms.plan(farm))
+        .isInstanceOf(BadInputException.class)
+        .hasMessageContaining("the forecast ends at 09:00 while the wet bulb on block")
+        .hasMessageContaining("is still below the stop threshold")
+        .hasMessageContaining("extend the forecast into the late morning")
+        .satisfies(e -> assertThat(e.getMessage()).doesNotContain("an hour after sunrise"));
   }
 }

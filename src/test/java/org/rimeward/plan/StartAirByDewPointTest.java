@@ -37,7 +37,7 @@ class StartAirByDewPointTest {
   /**
    * The table's rows at dew points −1.1 to −3.8 °C are rounded to whole °F and start where the
    * wet bulb is still about −0.4 °C (computed with the WMO psychrometer equation at 101.3 kPa, as
-   * the shared reference notes). At those rows a 0 °C wet-bulb start is up to 0.7 °C warmer than
+   * docs/reference/check-values.md §2.2 notes). At those rows a 0 °C wet-bulb start is up to 0.7 °C warmer than
    * the table: earlier, the safe side. Pinned so that a change of method shows here.
    */
   @ParameterizedTest(name = "dew point {0} °C -> table {1} °C, engine warmer by at most 0.7 °C")

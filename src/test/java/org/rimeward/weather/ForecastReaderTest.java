@@ -144,7 +144,7 @@ class ForecastReaderTest {
         """);
     Forecast f = ForecastReader.read(p, LA);
     // Alduchov & Eskridge (1996) AERK: T 2 °C, RH 70 % -> Td -2.90 °C; T -2 °C, RH 80 % ->
-    // Td -4.99 °C (frost-reference §5.2 dew-point checks, COMPUTED).
+    // Td -4.99 °C (docs/reference/check-values.md §5.2 dew-point checks, COMPUTED).
     assertThat(f.steps().get(0).dewPointC()).as("Td at 2 °C, 70 %").isCloseTo(-2.90, within(0.01));
     assertThat(f.steps().get(1).dewPointC()).as("Td at -2 °C, 80 %").isCloseTo(-4.99, within(0.01));
     assertThat(f.steps().get(0).rhPct()).isCloseTo(70.0, within(1e-6));

@@ -1,0 +1,46 @@
+package org.rimeward.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * A plan that runs out of memory, in a real JVM with a heap too small for it: one line that says
+ * so and names the {@code -Xmx} to try, no stack trace, and no half run in the audit trail.
+ */
+class OutOfMemoryIT {
+  @TempDir Path tmp;
+
+  @Test
+  void outOfMemorySaysSoInOneLineAndLeavesTheTrailWhole() throws Exception {
+    Path farm = tmp.resolve("farm");
+    Files.createDirectories(farm);
+    for (String f : List.of("farm.yaml", "forecast.csv")) {
+      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
+    }
+    // A first run with room records one whole run.
+    ChildProcess.Run ok = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(List.of(),
+        "plan", "--farm", farm.toString())).directory(tmp.toFile()), 300);
+    assertThat(ok.exit()).as(ok.err()).isZero();
+    // 12 MB is far too little to compile the rules: the run fails part-way.
+    ChildProcess.Run r = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(
+        List.of("-Xmx12m", "-XX:+UseSerialGC", "-Drimeward.cache=off"), "plan", "--farm",
+        farm.toString()))
+        .directory(tmp.toFile()), 300);
+    assertThat(r.exit()).as(r.err()).isEqualTo(1);
+    assertThat(r.err().strip().lines().toList()).as(r.err()).singleElement().satisfies(line ->
+        assertThat(line).startsWith("rimeward: out of memory with a ").contains("-Xmx")
+            .doesNotContain("Exception", "java.lang"));
+    assertThat(r.out()).isEmpty();
+    ChildProcess.Run verify = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(List.of(),
+        "audit", "verify", "--farm", farm.toString())).directory(tmp.toFile()), 300);
+    assertThat(verify.exit()).as(verify.out() + verify.err()).isZero();
+    ChildProcess.Run list = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(List.of(),
+        "audit", "list", "--farm", farm.toString())).directory(tmp.toFile()), 300);
+    assertThat(list.out()).as("the first run only").contains("2026-04-14");
+  }
+}
