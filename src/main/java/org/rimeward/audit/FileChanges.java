@@ -106,6 +106,7 @@ final class FileChanges {
    * What the file says about a pending change, read while its lock is held: the outcome and a
    * line for the user, or empty when the file's lock is held (an edit still running).
    */
+  @SuppressWarnings("try") // the lock is held for the block's duration, not read
   static Optional<Outcome> inspect(Unsettled p) {
     Optional<CropFileLock> lock = CropFileLock.tryAcquire(p.file());
     if (lock.isEmpty()) {

@@ -45,6 +45,11 @@ final class AuditCommand implements Runnable {
       return auditFile.file(farmOption.farm());
     }
 
+    /** The farm folder, or its farm file, as given. */
+    Path farm() {
+      return farmOption.farm();
+    }
+
     /** Opens the existing trail for reading; a missing file is the user's to fix. */
     AuditStore openForReading() {
       Path f = file();

@@ -23,6 +23,11 @@ final class AuditOptions {
 
   /** Whether to record; refuses {@code --audit} together with {@code --no-audit}. */
   boolean recording() {
+    return recording(noAudit, auditFile);
+  }
+
+  /** Whether to record, refusing {@code --no-audit} beside an {@code --audit FILE} it would ignore. */
+  static boolean recording(boolean noAudit, AuditFileOption auditFile) {
     if (noAudit && auditFile.given()) {
       throw new BadInputException("--audit and --no-audit: give one or the other; --no-audit"
           + " records nothing, so it has no file to record in");

@@ -63,8 +63,8 @@ final class AuditReplayCommand implements Callable<Integer> {
     return AuditCommand.guarded(spec, () -> {
       RunRecord rec = AuditShowCommand.load(where, run);
       if (!currentRules && !trustRecordedRules) {
-        Path farmDir = java.nio.file.Files.isRegularFile(where.farm)
-            ? where.farm.toAbsolutePath().getParent() : where.farm;
+        Path farmDir = java.nio.file.Files.isRegularFile(where.farm())
+            ? where.farm().toAbsolutePath().getParent() : where.farm();
         List<String> strangers = RuleTrust.standard(List.of(farmDir.resolve("rules")))
             .untrusted(rec);
         if (!strangers.isEmpty()) {
@@ -77,8 +77,8 @@ final class AuditReplayCommand implements Callable<Integer> {
         }
       }
       Replay.Result result = new Replay(new NightPlanner()).replay(rec,
-          currentRules ? folders.rules(where.farm) : null,
-          currentProfiles ? folders.cropProfiles(where.farm) : null);
+          currentRules ? folders.rules(where.farm()) : null,
+          currentProfiles ? folders.cropProfiles(where.farm()) : null);
       PrintWriter out = spec.commandLine().getOut();
       out.print(result.text());
       out.flush();

@@ -67,9 +67,9 @@ final class AuditSeasonCommand implements Callable<Integer> {
       String farmName = runs.isEmpty() ? "" : runs.get(runs.size() - 1).plan().farm();
       // The farm file gives every block a row, planned or not, and the areas and crop values
       // for the loss avoided; without one, the blocks the runs planned are all there is.
-      if (where.audit == null && Files.isRegularFile(where.farm.resolve(FarmLoader.FILE_NAME))
-          || Files.isRegularFile(where.farm) && where.audit == null) {
-        Farm farm = FarmLoader.load(where.farm);
+      if (!where.auditFile.given() && Files.isRegularFile(where.farm().resolve(FarmLoader.FILE_NAME))
+          || Files.isRegularFile(where.farm()) && !where.auditFile.given()) {
+        Farm farm = FarmLoader.load(where.farm());
         farmName = farm.name();
         for (Block b : farm.blocks()) {
           blocks.add(new Season.FarmBlock(b.id(), b.areaHa(),

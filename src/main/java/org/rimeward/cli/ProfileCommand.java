@@ -159,10 +159,19 @@ final class ProfileCommand implements Runnable {
    * with {@code --no-audit}.
    */
   static final class AuditTarget {
-    @Mixin AuditOptions options = new AuditOptions();
+    /**
+     * The farm folder, from the command's {@link Folder} (which owns {@code --farm} for the profile
+     * commands); set before use.
+     */
+    Path farm = Path.of(".");
+
+    @Mixin AuditFileOption auditFile = new AuditFileOption();
+
+    @Option(names = "--no-audit", description = "Record nothing in the audit trail.")
+    boolean noAudit;
 
     Path file() {
-      return options.file();
+      return auditFile.file(farm);
     }
 
     /**
@@ -170,7 +179,7 @@ final class ProfileCommand implements Runnable {
      * with {@code --no-audit}.
      */
     AuditStore open(CommandSpec spec) {
-      if (!options.recording()) {
+      if (!AuditOptions.recording(noAudit, auditFile)) {
         return null;
       }
       try {

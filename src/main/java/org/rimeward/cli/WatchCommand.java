@@ -110,8 +110,8 @@ final class WatchCommand implements Callable<Integer> {
         org.rimeward.units.Quantities.parse(colderMargin, org.rimeward.units.Dimension.TEMPERATURE_DELTA,
             "--colder-margin"), WatchPolicy.STANDARD.alarmMarginC(), duration(staleAfter, "--stale-after"),
         WatchPolicy.STANDARD.windLimitMs(), duration(commandTimeout, "--command-timeout"));
-    Replanner rp = Replanner.load(new PlanRequest(farm, forecast, folders.cropProfiles(),
-        folders.rules(), null), RuleBook::load);
+    Replanner rp = Replanner.load(new PlanRequest(farm, forecast, folders.cropProfiles,
+        folders.rules, null), RuleBook::load);
     Path file = readings != null ? readings : rp.farm().folder().resolve("readings.csv");
     Clock clock = RimewardCommand.clock(spec);
     Instant start = null;

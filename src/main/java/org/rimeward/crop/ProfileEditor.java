@@ -267,6 +267,7 @@ public final class ProfileEditor {
    * Runs {@code edit} on the crop file holding its lock: the file is read, edited and replaced
    * by one program at a time, so two edits at once both land.
    */
+  @SuppressWarnings("try") // the lock is held for the block's duration, not read
   private <T> T locked(String crop, java.util.function.Function<Loaded, T> edit) {
     Path path = cropFile(crop);
     Path real;
