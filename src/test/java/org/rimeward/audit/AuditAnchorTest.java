@@ -72,7 +72,7 @@ class AuditAnchorTest {
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
       for (String t : new String[] {"records", "runs", "run_inputs", "run_blocks", "run_rules",
-          "profile_edits", "crew_actions", "file_changes", "schema_steps"}) {
+          "profile_edits", "crew_actions", "file_changes", "schema_steps", "watch_alarms"}) {
         st.execute("DROP TRIGGER " + t + "_no_delete");
         st.executeUpdate("DELETE FROM " + t);
       }
@@ -83,10 +83,17 @@ class AuditAnchorTest {
     assertThat(walk.err()).contains("schema version row 3").contains("added outside rimeward");
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
-      st.executeUpdate("INSERT INTO records VALUES (1, 'schema_steps', '" + "0".repeat(64) + "', '"
-          + ChainHash.of("schema_steps", 1, "0".repeat(64), java.util.List.of(3L, "x", "y"))
-          + "')");
-      st.executeUpdate("INSERT INTO schema_steps VALUES (1, 3, 'x', 'y')");
+      // One forged step record for each chained schema step (versions 3 on), linked as the tool
+      // would link them.
+      String prev = "0".repeat(64);
+      long seq = 1;
+      for (long version = 3; version < 3 + AuditSamples.SCHEMA_STEP_RECORDS; version++, seq++) {
+        String hash = ChainHash.of("schema_steps", seq, prev, java.util.List.of(version, "x", "y"));
+        st.executeUpdate("INSERT INTO records VALUES (" + seq + ", 'schema_steps', '" + prev
+            + "', '" + hash + "')");
+        st.executeUpdate("INSERT INTO schema_steps VALUES (" + seq + ", " + version + ", 'x', 'y')");
+        prev = hash;
+      }
     }
     assertThat(Cli.run("audit", "verify", "--farm", farm.toString()).exitCode())
         .as("with the schema step forged too, the walk alone passes").isZero();

@@ -78,7 +78,7 @@ class AuditCrashIT {
       assertThat(reported).as("runs reported").isGreaterThanOrEqualTo(kills);
       // The trail's first record is the schema step that created it.
       assertThat(store.verify().recordCount())
-          .isEqualTo(1 + runs.size() * (1L + AuditWriterChild.INPUTS + AuditWriterChild.BLOCKS
+          .isEqualTo(AuditSamples.SCHEMA_STEP_RECORDS + runs.size() * (1L + AuditWriterChild.INPUTS + AuditWriterChild.BLOCKS
               * (1L + AuditWriterChild.RULES_PER_BLOCK)));
     }
   }

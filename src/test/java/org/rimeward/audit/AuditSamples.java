@@ -14,6 +14,10 @@ import java.util.Random;
  * Frost - Critical Temperatures for Various Fruits". The weather and water figures are invented.
  */
 public final class AuditSamples {
+  /** The chained schema-step records a new trail starts with: one per step from version 3 on. */
+  public static final long SCHEMA_STEP_RECORDS =
+      Schema.MIGRATIONS.stream().filter(m -> m.version() >= 3).count();
+
   private AuditSamples() {}
 
   public static final String PLAN_JSON = """

@@ -46,8 +46,9 @@ class AuditStoreTest {
       assertThat(back.blocks().get(0).rules()).extracting(RecordedRule::seq).containsExactly(1, 4);
       assertThat(back.planJson()).isEqualTo(AuditSamples.PLAN_JSON);
       assertThat(store.verify().intact()).isTrue();
-      // The schema step that created the file, then the run, its 5 inputs, 3 blocks and 4 rules.
-      assertThat(store.verify().recordCount()).isEqualTo(1 + 1 + 5 + 3 + 4);
+      // The schema steps that created the file, then the run, its 5 inputs, 3 blocks and 4 rules.
+      assertThat(store.verify().recordCount())
+          .isEqualTo(AuditSamples.SCHEMA_STEP_RECORDS + 1 + 5 + 3 + 4);
     }
   }
 
@@ -210,7 +211,7 @@ class AuditStoreTest {
     }
     try (AuditStore store = AuditStore.open(db())) {
       assertThat(store.verify().problem().orElseThrow())
-          .isEqualTo("record 2 (runs, run r1) lists 4 rules but 3 are recorded: the run's newest"
+          .isEqualTo("record " + (AuditSamples.SCHEMA_STEP_RECORDS + 1) + " (runs, run r1) lists 4 rules but 3 are recorded: the run's newest"
               + " records are missing");
     }
   }

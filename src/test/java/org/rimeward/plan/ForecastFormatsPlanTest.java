@@ -1,6 +1,7 @@
 package org.rimeward.plan;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.io.IOException;
@@ -68,7 +69,15 @@ class ForecastFormatsPlanTest {
     int compared = 0;
     for (BlockPlan a : hourly.blocks()) {
       BlockPlan b = threeHourly.blocks().stream().filter(x -> x.blockId().equals(a.blockId())).findFirst().orElseThrow();
-      assertThat(b.risk()).as(a.blockId()).isEqualTo(a.risk());
+      // Every third hour of the demo misses its 06:00 minimum, so the coldest bud comes out up to
+      // about half a degree warmer; the risk may then fall to the next band only when the hourly
+      // coldest bud lies that close to the band's edge.
+      assertThat(b.minBudC()).as("coldest bud " + a.blockId()).isCloseTo(a.minBudC(), within(0.6));
+      if (b.risk() != a.risk()) {
+        double edge = a.targetC() + 1.5; // the default watch band, rules/policy/thresholds.drl
+        assertThat(Math.abs(a.minBudC() - edge)).as("risk %s vs %s on %s, near the watch band's edge",
+            a.risk(), b.risk(), a.blockId()).isLessThan(0.6);
+      }
       if (a.sprinkle().isPresent() && b.sprinkle().isPresent()) {
         // Linear between 3-hourly values: the demo night cools fastest in the evening, so a
         // threshold is crossed up to half an hour away from the hourly forecast's crossing.

@@ -71,7 +71,7 @@ class TimelineTest {
     String text = PlanText.render(plan, UnitSystem.METRIC, false);
     assertThat(text.indexOf("Tonight, in time order")).isPositive().isLessThan(text.indexOf("  block  "));
     assertThat(text).contains("17:44  field-berries    cover crew starts putting covers on",
-        "19:44  field-berries    covers must be on by now", "21:11  pond             pump on, up to",
+        "19:44  field-berries    covers must be on by now", "22:42  pond             pump on, up to",
         "08:32  field-berries    covers off");
     JsonNode json = org.rimeward.io.Json.mapper().readTree(PlanJson.toText(plan));
     JsonNode timeline = json.get("timeline");

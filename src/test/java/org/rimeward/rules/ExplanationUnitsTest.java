@@ -72,7 +72,8 @@ class ExplanationUnitsTest {
         }
       }
     }
-    assertThat(pairs).isGreaterThanOrEqualTo(5);
+    // Most thresholds are facts now, shown in the reader's units; the fixed ones left are quoted.
+    assertThat(pairs).isPositive();
   }
 
   @Test
