@@ -73,7 +73,7 @@ class BadInputTest {
       "absurd flow | farm.yaml | max_flow: 450 m3/h | max_flow: 450000000 m3/h | farm.yaml:19: water_sources[pond].max_flow",
       "absurd volume | farm.yaml | volume: 3400 m3 | volume: 3.4e12 m3 | farm.yaml:20: water_sources[pond].volume",
       "decimal comma quantity | farm.yaml | cold_air_offset: -0.5C | cold_air_offset: -2,5C | farm.yaml:41:, use a decimal point",
-      "Kelvin below absolute zero | farm.yaml | rate: 3.8 mm/h | rate: 3.8 mm/h\\n      water_temp: -5K | farm.yaml:, below absolute zero",
+      "Kelvin below absolute zero | farm.yaml | rate: 5.5 mm/h | rate: 5.5 mm/h\\n      water_temp: -5K | farm.yaml:, below absolute zero",
       "elevation the physics refuses | farm.yaml | elevation: 240 m | elevation: 4600 m | farm.yaml:7: farm.elevation, outside -420 to 4500 m",
   })
   void badFileInputIsRefusedWithFileAndLine(String name, String file, String from, String to,
