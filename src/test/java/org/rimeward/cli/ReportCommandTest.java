@@ -58,7 +58,7 @@ class ReportCommandTest {
     assertThat(r.out()).contains("wrote the plan to " + page);
     String html = Files.readString(page);
     assertThat(html).startsWith("<!DOCTYPE html>").contains("Quillhaven Bench Farm", "<svg",
-        "Start sprinkling 21:11");
+        "Start sprinkling 22:42");
   }
 
   @Test
@@ -83,7 +83,7 @@ class ReportCommandTest {
     assertThat(r.exitCode()).as(r.toString()).isZero();
     assertThat(r.out()).contains("Recorded run <code>" + runId + "</code>",
         "record " + head.seq() + ", hash <code>" + head.hash() + "</code>", "farm.yaml",
-        "forecast.csv", "<svg", "Start sprinkling 21:11");
+        "forecast.csv", "<svg", "Start sprinkling 22:42");
     // The same page as the plan made that night, but for its footer.
     Path page = tmp.resolve("night.html");
     plan("2026-04-15T02:00:00Z", "--format", "html", "--output", page.toString(), "--no-audit");
