@@ -28,7 +28,7 @@ import org.rimeward.weather.ForecastReader;
  * the grower's command gets the block and the alarm's kind, each alarm comes once per block per
  * night unless it escalates, stale readings raise an alarm, a failing or hanging command is
  * reported and never stops the watch, and the trail keeps alarms and re-plans with inputs stored
- * once. (The demo plan starts hollow-cherry about 21:00.)
+ * once. (The demo plan starts hollow-cherry at 22:42, the orchard blocks at 00:37.)
  */
 class WatchCommandTest {
   private static final ZoneId ZONE = ZoneId.of("America/Los_Angeles");
@@ -68,42 +68,44 @@ class WatchCommandTest {
 
   @Test
   void onceCallsTheGrowersCommandWithBlockAndKindAndIsQuietTheSecondTime() throws Exception {
-    readings("2026-04-14T18:00-07:00", "2026-04-14T20:50-07:00", -1.5);
+    readings("2026-04-14T18:00-07:00", "2026-04-15T00:20-07:00", -1.5);
     Path log = tmp.resolve("alarms.txt");
     String cmd = "echo \"$RIMEWARD_BLOCK $RIMEWARD_ALARM $RIMEWARD_AT $RIMEWARD_MESSAGE\" >> " + log;
-    Cli.Result first = once("2026-04-14T20:50-07:00", "--on-alarm", cmd);
+    Cli.Result first = once("2026-04-15T00:20-07:00", "--on-alarm", cmd);
     assertThat(first.exitCode()).as(first.toString()).isEqualTo(Main.ACTION_NEEDED);
     assertThat(first.out()).contains("\u0007").contains("colder-than-forecast");
     List<String> lines = Files.readAllLines(log);
-    assertThat(lines).anyMatch(l -> l.startsWith("all colder-than-forecast 2026-04-14T20:50-07:00"
+    assertThat(lines).anyMatch(l -> l.startsWith("all colder-than-forecast 2026-04-15T00:20-07:00"
         + " readings 1.5 °C colder"));
-    assertThat(lines).allMatch(l -> l.contains(" 2026-04-14T20:50-07:00 "));
-    assertThat(lines).anyMatch(l -> l.startsWith("hollow-cherry start-due "));
-    Cli.Result second = once("2026-04-14T20:55-07:00", "--on-alarm", cmd);
+    assertThat(lines).allMatch(l -> l.contains(" 2026-04-15T00:20-07:00 "));
+    // At least one block's own alarm, named by block and kind, beside the farm-wide one.
+    assertThat(lines).anyMatch(l -> l.matches("[a-z][a-z-]* (start-due|alarm-temperature) .*")
+        && !l.startsWith("all "));
+    Cli.Result second = once("2026-04-15T00:25-07:00", "--on-alarm", cmd);
     assertThat(second.exitCode()).as(second.toString()).isZero();
     assertThat(Files.readAllLines(log)).hasSameSizeAs(lines);
   }
 
   @Test
   void anAlarmEscalatesOnceWhenTheStartBecomesOverdue() throws Exception {
-    readings("2026-04-14T18:00-07:00", "2026-04-14T22:00-07:00", 0.0);
-    Cli.Result due = once("2026-04-14T20:50-07:00");
+    readings("2026-04-14T18:00-07:00", "2026-04-15T01:10-07:00", 0.0);
+    Cli.Result due = once("2026-04-14T22:20-07:00");
     assertThat(due.exitCode()).isEqualTo(Main.ACTION_NEEDED);
     java.util.regex.Matcher m = java.util.regex.Pattern.compile(
         "hollow-cherry +start-due +start sprinkling at (\\d\\d:\\d\\d) \\(in \\d+ min\\)")
         .matcher(due.out());
     assertThat(m.find()).as(due.out()).isTrue();
-    Cli.Result overdue = once("2026-04-14T21:40-07:00");
+    Cli.Result overdue = once("2026-04-14T23:10-07:00");
     assertThat(overdue.exitCode()).isEqualTo(Main.ACTION_NEEDED);
     // Readings replacing the forecast may move the start by a few minutes; it is past either way.
-    assertThat(overdue.out()).containsPattern("hollow-cherry +start-due +start overdue since 2[01]:\\d\\d");
-    Cli.Result again = once("2026-04-14T21:45-07:00");
+    assertThat(overdue.out()).containsPattern("hollow-cherry +start-due +start overdue since 2[0-3]:\\d\\d");
+    Cli.Result again = once("2026-04-14T23:15-07:00");
     assertThat(again.out()).doesNotContain("hollow-cherry    start-due");
     // Recorded as running: the overdue alarm is not raised for a block the crew started.
-    Cli.Result action = Cli.run(Clock.fixed(Instant.parse("2026-04-15T06:00:00Z"), ZoneOffset.UTC),
-        "action", "lane-peach", "sprinkling-on", "--at", "2026-04-14T22:50", "--farm", farm.toString());
+    Cli.Result action = Cli.run(Clock.fixed(Instant.parse("2026-04-15T09:00:00Z"), ZoneOffset.UTC),
+        "action", "lane-peach", "sprinkling-on", "--at", "2026-04-15T00:10", "--farm", farm.toString());
     assertThat(action.exitCode()).isZero();
-    Cli.Result later = once("2026-04-14T23:30-07:00");
+    Cli.Result later = once("2026-04-15T01:10-07:00");
     assertThat(later.out()).doesNotContain("lane-peach       start-due");
   }
 
@@ -134,10 +136,10 @@ class WatchCommandTest {
 
   @Test
   void alarmsAndChangedReplansAreInTheTrailWithInputsStoredOnce() throws Exception {
-    readings("2026-04-14T18:00-07:00", "2026-04-14T20:50-07:00", -1.5);
-    once("2026-04-14T20:50-07:00");
-    readings("2026-04-14T18:00-07:00", "2026-04-14T21:50-07:00", -2.5);
-    once("2026-04-14T21:50-07:00");
+    readings("2026-04-14T18:00-07:00", "2026-04-15T00:20-07:00", -1.5);
+    once("2026-04-15T00:20-07:00");
+    readings("2026-04-14T18:00-07:00", "2026-04-15T01:20-07:00", -2.5);
+    once("2026-04-15T01:20-07:00");
     Cli.Result verify = Cli.run("audit", "verify", "--farm", farm.toString());
     assertThat(verify.exitCode()).as(verify.toString()).isZero();
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + farm.resolve("audit.db"));

@@ -70,13 +70,16 @@ class ForecastFormatsPlanTest {
     for (BlockPlan a : hourly.blocks()) {
       BlockPlan b = threeHourly.blocks().stream().filter(x -> x.blockId().equals(a.blockId())).findFirst().orElseThrow();
       // Every third hour of the demo misses its 06:00 minimum, so the coldest bud comes out up to
-      // about half a degree warmer; the risk may then fall to the next band only when the hourly
+      // about 0.6 °C warmer; the risk may then fall to the next band only when the hourly
       // coldest bud lies that close to the band's edge.
-      assertThat(b.minBudC()).as("coldest bud " + a.blockId()).isCloseTo(a.minBudC(), within(0.6));
+      assertThat(b.minBudC()).as("coldest bud " + a.blockId()).isCloseTo(a.minBudC(), within(0.7));
       if (b.risk() != a.risk()) {
-        double edge = a.targetC() + 1.5; // the default watch band, rules/policy/thresholds.drl
-        assertThat(Math.abs(a.minBudC() - edge)).as("risk %s vs %s on %s, near the watch band's edge",
-            a.risk(), b.risk(), a.blockId()).isLessThan(0.6);
+        // Band edges: the watch band above the target (default 1.5 °C, rules/policy/thresholds.drl),
+        // T10 and T90.
+        double nearest = Math.min(Math.abs(a.minBudC() - (a.targetC() + 1.5)),
+            Math.min(Math.abs(a.minBudC() - a.t10C()), Math.abs(a.minBudC() - a.t90C())));
+        assertThat(nearest).as("risk %s vs %s on %s, near a band's edge", a.risk(), b.risk(),
+            a.blockId()).isLessThan(0.7);
       }
       if (a.sprinkle().isPresent() && b.sprinkle().isPresent()) {
         // Linear between 3-hourly values: the demo night cools fastest in the evening, so a
