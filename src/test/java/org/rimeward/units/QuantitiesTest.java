@@ -62,7 +62,7 @@ class QuantitiesTest {
     assertThat(Quantities.format(3.81, Dimension.RATE, UnitSystem.US, 2)).isEqualTo("0.15 in/h");
     // 72 m3/h = 317 US gal/min (NIST SP 811: 1 gal = 3.785411784 L).
     assertThat(Quantities.format(72, Dimension.FLOW, UnitSystem.US, 0)).isEqualTo("317 gpm");
-    assertThat(Quantities.format(3785.411784, Dimension.VOLUME, UnitSystem.US, 0)).isEqualTo("1000000 gal");
+    assertThat(Quantities.format(3785.411784, Dimension.VOLUME, UnitSystem.US, 0)).isEqualTo("1,000,000 gal");
   }
 
   @Test
