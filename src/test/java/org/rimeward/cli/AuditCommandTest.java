@@ -173,7 +173,10 @@ class AuditCommandTest {
   void verifySaysIntactOrNamesTheBrokenRecordWithExitCode4() throws Exception {
     Cli.Result ok = Cli.run("audit", "verify", "--farm", farm.toString());
     assertThat(ok.exitCode()).as(ok.toString()).isZero();
-    assertThat(ok.out()).startsWith("chain intact: 27 records\n").contains("head: 27:");
+    // The two sample runs' 26 records after the chained schema steps the trail starts with.
+    long records = 26 + org.rimeward.audit.AuditSamples.SCHEMA_STEP_RECORDS;
+    assertThat(ok.out()).startsWith("chain intact: " + records + " records\n")
+        .contains("head: " + records + ":");
 
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db);
         Statement st = c.createStatement()) {
@@ -182,8 +185,11 @@ class AuditCommandTest {
     }
     Cli.Result broken = Cli.run("audit", "verify", "--audit", db.toString());
     assertThat(broken.exitCode()).isEqualTo(4);
-    assertThat(broken.out()).startsWith("chain broken: record 15 (runs, run " + NEW + ") hash does"
-        + " not match its content").contains("14 records before it check out");
+    // The second run's row: after the schema steps and the first run's 13 records.
+    long second = org.rimeward.audit.AuditSamples.SCHEMA_STEP_RECORDS + 13 + 1;
+    assertThat(broken.out()).startsWith("chain broken: record " + second + " (runs, run " + NEW
+        + ") hash does not match its content")
+        .contains((second - 1) + " records before it check out");
     Cli.Result show = Cli.run("audit", "show", NEW, "--audit", db.toString());
     assertThat(show.exitCode()).isEqualTo(4);
     assertThat(show.err()).contains("does not match its chain hash");
