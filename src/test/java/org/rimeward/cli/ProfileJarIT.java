@@ -27,10 +27,11 @@ class ProfileJarIT {
   }
 
   @Test
-  void editingTheCopyInsideTheJarSaysWhatToDo() throws Exception {
+  void editingOutsideAFarmFolderSaysWhatToDo() throws Exception {
+    // The bundled copy is never edited; outside a farm folder there is no farm to copy it into.
     ChildProcess.Run r = java("profile", "set", "apple/winesap", "--stage", "full-bloom", "--t10", "-3", "--note", "n",
         "--no-audit");
     assertThat(r.exit()).isEqualTo(2);
-    assertThat(r.err()).contains("packed inside the rimeward jar").contains("--crop-profiles DIR");
+    assertThat(r.err()).contains("has no farm.yaml").contains("--crop-profiles DIR");
   }
 }
