@@ -35,8 +35,8 @@ public record BudTemperature(double budTempC, double depressionC) {
   }
 
   /**
-   * Bud temperature, °C, from air temperature (−30…20 °C), dew point (−40 °C…air), wind at 2 m
-   * (0…20 m/s) and cloud cover (0…100 %): steady energy balance of a sphere with Brutsaert (1975)
+   * Bud temperature, °C, from air temperature (−40…45 °C), dew point (−40 °C…air), wind at 2 m
+   * (0…60 m/s, as the sprinkler balance) and cloud cover (0…100 %): steady energy balance of a sphere with Brutsaert (1975)
    * sky emissivity, Unsworth &amp; Monteith (1975) cloud correction and Whitaker (1972)/Churchill
    * (1983) convection; gives 1–3 °C below air on clear calm nights as measured by Leuning &amp;
    * Cremer (1988) and described in FAO 2005 (Snyder &amp; de Melo-Abreu), near zero in wind or
@@ -54,8 +54,10 @@ public record BudTemperature(double budTempC, double depressionC) {
    */
   public static BudTemperature estimate(double airTempC, double dewPointC, double windMs,
       double cloudPct, double solarWm2) {
-    Ranges.check("air temperature", airTempC, -30, 20, "°C");
-    Ranges.check("wind speed at 2 m", windMs, 0, 20, "m/s");
+    // The balance itself holds at any weather; these bounds only keep out values no forecast gives,
+    // so a warm spring afternoon or a gale in the window is planned, not refused.
+    Ranges.check("air temperature", airTempC, -40, 45, "°C");
+    Ranges.check("wind speed at 2 m", windMs, 0, SprinklerBalance.MAX_WIND_MS, "m/s");
     Ranges.check("cloud cover", cloudPct, 0, 100, "%");
     Ranges.check("solar radiation", solarWm2, 0, 1400, "W/m²");
     double skyWm2 = Sky.downwardLongWaveWm2(airTempC, dewPointC, cloudPct);

@@ -91,4 +91,19 @@ class BudTemperatureTest {
     org.assertj.core.api.Assertions.assertThatThrownBy(() -> BudTemperature.estimate(0, -5, 1, 0, 2000))
         .isInstanceOf(OutOfRangeException.class).hasMessageContaining("solar radiation");
   }
+
+  /**
+   * A forecast's window can open on a warm afternoon or hold a gale: the estimate answers there
+   * (a bud then sits within a degree of the air, as any small organ in wind or daylight does; common
+   * practice) rather than refusing the night.
+   */
+  @Test
+  void aWarmAfternoonAndAGaleAreEstimatedNotRefused() {
+    BudTemperature warm = BudTemperature.estimate(28, 10, 2.0, 20, 0);
+    org.assertj.core.api.Assertions.assertThat(warm.depressionC()).isBetween(0.0, 3.0);
+    BudTemperature gale = BudTemperature.estimate(-3, -8, 35.0, 0, 0);
+    org.assertj.core.api.Assertions.assertThat(gale.depressionC()).isBetween(0.0, 0.5);
+    org.assertj.core.api.Assertions.assertThatThrownBy(() -> BudTemperature.estimate(60, 10, 1, 0, 0))
+        .isInstanceOf(OutOfRangeException.class).hasMessageContaining("air temperature");
+  }
 }
