@@ -136,6 +136,49 @@ class ForecastFormatsPlanTest {
         .hasMessageContaining("after sunrise on 2026-04-13");
   }
 
+  @Test
+  void anOpenMeteoResponseAcrossTheSpringClockChangePlansAsTheCsvWithOffsetsDoes() throws IOException {
+    // US clocks go forward at 02:00 on 2026-03-08. Asked on the 7th, Open-Meteo writes every hour
+    // at that day's offset, -08:00, so its "2026-03-08T04:00" is 05:00 PDT. The CSV writes each
+    // hour with its real offset. Same instants, same values: the same plan.
+    var json = new com.fasterxml.jackson.databind.ObjectMapper();
+    var om = (com.fasterxml.jackson.databind.node.ObjectNode) json.readTree(
+        RESPONSES.resolve("demo-night-open-meteo.json").toFile());
+    om.put("utc_offset_seconds", -28800).put("timezone_abbreviation", "PST");
+    var times = (com.fasterxml.jackson.databind.node.ArrayNode) om.path("hourly").path("time");
+    List<String> csv = new ArrayList<>(List.of("time,air_temp_c,dew_point_c,wind_ms,cloud_pct,solar_wm2"));
+    Instant first = Instant.parse("2026-03-08T00:00:00Z");
+    java.time.ZoneId la = java.time.ZoneId.of("America/Los_Angeles");
+    for (int i = 0; i < times.size(); i++) {
+      Instant t = first.plus(Duration.ofHours(i));
+      times.set(i, t.atOffset(java.time.ZoneOffset.ofHours(-8)).toLocalDateTime().toString());
+      var h = om.path("hourly");
+      csv.add(String.format(java.util.Locale.ROOT, "%s,%s,%s,%.6f,%s,%s",
+          t.atZone(la).toOffsetDateTime(), h.path("temperature_2m").get(i).asText(),
+          h.path("dew_point_2m").get(i).asText(), h.path("wind_speed_10m").get(i).asDouble() / 3.6,
+          h.path("cloud_cover").get(i).asText(), h.path("shortwave_radiation").get(i).asText()));
+    }
+    Path jsonFile = tmp.resolve("dst-open-meteo.json");
+    Files.writeString(jsonFile, json.writeValueAsString(om));
+    Path csvFile = tmp.resolve("dst.csv");
+    Files.write(csvFile, csv);
+    java.time.LocalDate night = java.time.LocalDate.parse("2026-03-07");
+    Plan a = new NightPlanner().plan(new PlanRequest(TestFarms.DEMO, csvFile, TestFarms.CROPS, TestFarms.RULES, night));
+    Plan b = new NightPlanner().plan(new PlanRequest(TestFarms.DEMO, jsonFile, TestFarms.CROPS, TestFarms.RULES, night));
+    assertThat(PlanJson.time(b.night().sunrise(), la)).endsWith("-07:00");
+    int sprinkled = 0;
+    for (BlockPlan x : a.blocks()) {
+      BlockPlan y = b.blocks().stream().filter(z -> z.blockId().equals(x.blockId())).findFirst().orElseThrow();
+      assertThat(y.status()).isEqualTo(x.status());
+      if (x.sprinkle().isPresent()) {
+        assertWithin(x.sprinkle().get().start(), y.sprinkle().orElseThrow().start(), Duration.ofMinutes(1), "start " + x.blockId());
+        assertWithin(x.sprinkle().get().stop(), y.sprinkle().orElseThrow().stop(), Duration.ofMinutes(1), "stop " + x.blockId());
+        sprinkled++;
+      }
+    }
+    assertThat(sprinkled).isPositive();
+  }
+
   static void assertWithin(Instant a, Instant b, Duration tolerance, String what) {
     assertThat(Duration.between(a, b).abs()).as("%s: %s vs %s", what, a, b).isLessThanOrEqualTo(tolerance);
   }
