@@ -29,13 +29,15 @@ class WatchJarIT {
     Path out = tmp.resolve("out.txt");
     Process p = new ProcessBuilder(cmd).redirectErrorStream(true).redirectOutput(out.toFile()).start();
     p.getOutputStream().close();
-    // Wait for the first pass (its alarms are on the screen), then send SIGTERM.
+    // Wait for the first pass (its alarm, readings colder than forecast, is on the screen), then
+    // send SIGTERM.
     long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(90);
     while (System.nanoTime() < deadline && !Files.readString(out, StandardCharsets.UTF_8)
-        .contains("start-due")) {
+        .contains("colder-than-forecast")) {
       Thread.sleep(200);
     }
-    assertThat(Files.readString(out)).contains("watching station-readings.csv every 5s");
+    assertThat(Files.readString(out)).contains("watching station-readings.csv every 5s")
+        .as("the first pass ran and raised its alarm").contains("colder-than-forecast");
     p.destroy();
     assertThat(p.waitFor(30, TimeUnit.SECONDS)).as("stopped within 30 s of SIGTERM").isTrue();
     assertThat(p.exitValue()).as("128 + SIGTERM").isEqualTo(143);
