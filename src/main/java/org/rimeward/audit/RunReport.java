@@ -57,18 +57,14 @@ public final class RunReport {
     return Json.pretty(root);
   }
 
-  /** The run's plan in the plan CSV schema, with the run id as the first column. */
-  public static String csv(RunRecord run) {
-    return csv(run, List.of());
-  }
-
   /**
-   * As {@link #csv(RunRecord)}, with what the crew recorded beside each advised action in
-   * {@code done_start} and {@code done_stop} (empty when nothing was recorded).
+   * The run's plan in the plan CSV schema, with the run id and the trail's head as the first
+   * columns, and what the crew recorded beside each advised action in {@code done_start} and
+   * {@code done_stop} (empty when nothing was recorded).
    */
-  public static String csv(RunRecord run, List<CrewAction> actions) {
+  public static String csv(RunRecord run, List<CrewAction> actions, ChainHead head) {
     ZoneId zone = ZoneId.of(run.zoneId());
-    return PlanCsv.render(plan(run), run.runId(),
+    return PlanCsv.render(plan(run), new PlanCsv.Recorded(run.runId(), head.toString()),
         (block, method) -> CrewReport.doneTimes(block, method, actions, zone));
   }
 

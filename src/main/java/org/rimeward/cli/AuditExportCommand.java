@@ -17,7 +17,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "export",
     description = "Export one recorded run for an insurer or a report: JSON (as 'show --json') or"
         + " CSV with one row per block action, with what the crew recorded beside it (done_start,"
-        + " done_stop).")
+        + " done_stop). Both carry the trail's head when exported (chain_head, SEQ:HASH), for"
+        + " 'audit verify --head' later.")
 final class AuditExportCommand implements Callable<Integer> {
   enum Format { json, csv }
 
@@ -40,7 +41,7 @@ final class AuditExportCommand implements Callable<Integer> {
     return AuditCommand.guarded(spec, () -> {
       AuditShowCommand.Loaded l = AuditShowCommand.loadWithActions(where, run);
       RunRecord rec = l.run();
-      String text = format == Format.csv ? RunReport.csv(rec, l.actions())
+      String text = format == Format.csv ? RunReport.csv(rec, l.actions(), l.head())
           : AuditShowCommand.json(l);
       if (output == null) {
         spec.commandLine().getOut().print(text);

@@ -109,13 +109,13 @@ final class AuditShowCommand implements Callable<Integer> {
       head.put("seq", chainHead.seq());
       head.put("hash", chainHead.hash());
       out.setAll(doc);
-      return JSON.writeValueAsString(out) + "\n";
+      return org.rimeward.io.Json.pretty(out);
     } catch (JsonProcessingException e) {
       throw new IllegalStateException(e);
     }
   }
 
-  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final ObjectMapper JSON = org.rimeward.io.Json.mapper();
 
   static RunRecord load(AuditCommand.Location where, String run) {
     try (AuditStore store = where.openForReading()) {

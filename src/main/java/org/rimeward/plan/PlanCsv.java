@@ -13,10 +13,11 @@ import org.rimeward.io.Json;
 /**
  * The plan as CSV, the one schema of {@code plan --format csv} and {@code audit export --format
  * csv}: one row per block action (a block with nothing to do has one row, method {@code none}),
- * metric, times local with their offset, LF line endings. An export puts the run id first.
+ * metric, times local with their offset, LF line endings. An export puts the run id and the
+ * trail's chain head first.
  */
 public final class PlanCsv {
-  /** The columns, without the export's leading {@code run_id}. */
+  /** The columns, without the export's leading {@code run_id} and {@code chain_head}. */
   public static final List<String> COLUMNS = List.of("night", "block", "crop", "variety", "stage",
       "risk", "kill_pct_unprotected", "status", "method", "start", "stop", "required_rate_mm_h",
       "installed_rate_mm_h", "water_m3", "source", "water_granted", "area_ha", "flow_m3_h", "grant",
@@ -32,6 +33,20 @@ public final class PlanCsv {
     Done NOTHING = (block, method) -> new String[] {"", ""};
   }
 
+  /**
+   * Where a recorded run's rows came from: the run, and the trail's newest record when the export
+   * was made, written {@code SEQ:HASH} as {@code audit head} prints it. The head is on every row so
+   * that a filed copy, or any row cut from it into a spreadsheet, can be checked later with {@code
+   * audit verify --head}.
+   */
+  public record Recorded(String runId, String chainHead) {
+    public Recorded {
+      if (runId == null || runId.isBlank() || chainHead == null || chainHead.isBlank()) {
+        throw new IllegalArgumentException("a recorded run's CSV needs its run id and chain head");
+      }
+    }
+  }
+
   private PlanCsv() {}
 
   public static String render(Plan plan) {
@@ -41,13 +56,15 @@ public final class PlanCsv {
   /**
    * The document as CSV.
    *
-   * @param runId the recorded run's id for a leading {@code run_id} column; null for none
+   * @param recorded the recorded run for the leading {@code run_id} and {@code chain_head}
+   *     columns; null for tonight's plan, which has neither
    * @param done what the crew recorded for each action
    */
-  public static String render(PlanDocument plan, String runId, Done done) {
+  public static String render(PlanDocument plan, Recorded recorded, Done done) {
     List<String> header = new ArrayList<>();
-    if (runId != null) {
+    if (recorded != null) {
       header.add("run_id");
+      header.add("chain_head");
     }
     header.addAll(COLUMNS);
     StringWriter out = new StringWriter();
@@ -59,8 +76,9 @@ public final class PlanCsv {
         String decided = b.rules().stream().filter(r -> "decision".equals(r.kind()))
             .map(PlanDocument.Rule::id).collect(Collectors.joining(" "));
         List<Object> head = new ArrayList<>();
-        if (runId != null) {
-          head.add(runId);
+        if (recorded != null) {
+          head.add(recorded.runId());
+          head.add(recorded.chainHead());
         }
         head.addAll(java.util.Arrays.asList(plan.night().date(), b.block(), b.crop(), b.variety(),
             b.stage(), b.risk(), Json.round(b.killPctUnprotected(), 1), b.status()));

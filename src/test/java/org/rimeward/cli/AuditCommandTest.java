@@ -129,7 +129,7 @@ class AuditCommandTest {
     try (CSVParser p = CSVParser.parse(Files.readString(out),
         CSVFormat.DEFAULT.builder().setHeader().get())) {
       // The plan's own CSV schema, with the run id in front.
-      assertThat(p.getHeaderNames()).containsExactly("run_id", "night", "block", "crop", "variety",
+      assertThat(p.getHeaderNames()).containsExactly("run_id", "chain_head", "night", "block", "crop", "variety",
           "stage", "risk", "kill_pct_unprotected", "status", "method", "start", "stop",
           "required_rate_mm_h", "installed_rate_mm_h", "water_m3", "source", "water_granted",
           "area_ha", "flow_m3_h", "grant", "decision_rules", "done_start", "done_stop");
@@ -139,6 +139,11 @@ class AuditCommandTest {
       assertThat(gala.get("block")).isEqualTo("north-gala");
       assertThat(gala.get("method")).isEqualTo("sprinkle");
       assertThat(gala.get("run_id")).isEqualTo(NEW);
+      // The head as 'audit head' gives it, on every row, and one 'audit verify --head' accepts.
+      String head = Cli.run("audit", "head", "--audit", db.toString()).out().strip();
+      assertThat(rows).allSatisfy(row -> assertThat(row.get("chain_head")).isEqualTo(head));
+      assertThat(Cli.run("audit", "verify", "--head", head, "--audit", db.toString()).exitCode())
+          .isZero();
       assertThat(gala.get("start")).isEqualTo("2026-04-16T01:10+02:00");
       assertThat(gala.get("stop")).isEqualTo("2026-04-16T07:05+02:00");
       assertThat(gala.get("water_m3")).isEqualTo("412.0");

@@ -41,14 +41,16 @@ class PlanDocumentTest {
   }
 
   @Test
-  void theCsvOfARecordedDocumentIsTheCsvOfThePlanWithTheRunIdInFront() {
+  void theCsvOfARecordedDocumentIsTheCsvOfThePlanWithTheRunAndHeadInFront() {
     PlanDocument back = PlanJson.read(PlanJson.toText(plan));
     String[] plain = PlanCsv.render(plan).split("\n", -1);
-    String[] withRun = PlanCsv.render(back, "run-1", PlanCsv.Done.NOTHING).split("\n", -1);
+    String head = "7:" + "ab".repeat(32);
+    String[] withRun = PlanCsv.render(back, new PlanCsv.Recorded("run-1", head),
+        PlanCsv.Done.NOTHING).split("\n", -1);
     assertThat(withRun).hasSameSizeAs(plain);
-    assertThat(withRun[0]).isEqualTo("run_id," + plain[0]);
+    assertThat(withRun[0]).isEqualTo("run_id,chain_head," + plain[0]);
     for (int i = 1; i < plain.length - 1; i++) {
-      assertThat(withRun[i]).isEqualTo("run-1," + plain[i]);
+      assertThat(withRun[i]).isEqualTo("run-1," + head + "," + plain[i]);
     }
     assertThat(PlanCsv.render(plan)).doesNotContain("\r");
   }
