@@ -24,9 +24,19 @@ public final class Main {
   private Main() {}
 
   public static void main(String[] args) {
-    PrintWriter out = new PrintWriter(System.out, true);
-    PrintWriter err = new PrintWriter(System.err, true);
-    System.exit(execute(out, err, args));
+    int code;
+    try {
+      PrintWriter out = new PrintWriter(System.out, true);
+      PrintWriter err = new PrintWriter(System.err, true);
+      code = execute(out, err, args);
+    } catch (OutOfMemoryError e) {
+      // The handlers below could not even word the message: the heap was still full when they
+      // ran. Write the line made at start-up, byte for byte, and nothing else.
+      System.err.write(OUT_OF_MEMORY_LINE, 0, OUT_OF_MEMORY_LINE.length);
+      System.err.flush();
+      code = INTERNAL_ERROR;
+    }
+    System.exit(code);
   }
 
   /** Runs one command line with the given streams and returns its exit code. */
@@ -95,13 +105,26 @@ public final class Main {
    * transaction, so a run that ran out of memory left nothing half-written there.
    */
   static int outOfMemory(PrintWriter err) {
-    long mb = Runtime.getRuntime().maxMemory() >> 20;
-    long next = Math.max(256, Integer.highestOneBit((int) Math.max(1, mb)) * 2L);
-    err.println("rimeward: out of memory with a " + mb + " MB Java heap; nothing was recorded."
-        + " Run again with more, e.g. java -Xmx" + next + "m -jar rimeward.jar ... (or"
-        + " JAVA_OPTS=-Xmx" + next + "m bin/rimeward ...)");
+    err.println(OUT_OF_MEMORY);
     err.flush();
     return INTERNAL_ERROR;
+  }
+
+  /**
+   * Worded once, while there is memory: when the heap runs out, building the message could itself
+   * run out of memory and let the error escape as a stack trace.
+   */
+  private static final String OUT_OF_MEMORY = outOfMemoryMessage(Runtime.getRuntime().maxMemory());
+
+  private static final byte[] OUT_OF_MEMORY_LINE =
+      (OUT_OF_MEMORY + System.lineSeparator()).getBytes(java.nio.charset.StandardCharsets.UTF_8);
+
+  static String outOfMemoryMessage(long maxHeapBytes) {
+    long mb = maxHeapBytes >> 20;
+    long next = Math.max(256, Integer.highestOneBit((int) Math.max(1, Math.min(mb, 1 << 30))) * 2L);
+    return "rimeward: out of memory with a " + mb + " MB Java heap; nothing was recorded."
+        + " Run again with more, e.g. java -Xmx" + next + "m -jar rimeward.jar ... (or"
+        + " JAVA_OPTS=-Xmx" + next + "m bin/rimeward ...)";
   }
 
   private static Throwable rootInput(Throwable ex) {

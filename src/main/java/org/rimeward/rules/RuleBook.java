@@ -126,6 +126,22 @@ public final class RuleBook {
     return true;
   }
 
+  /** The Drools compiler's option: packages with more rules than this are built in parallel. */
+  static final String PARALLEL_BUILD_THRESHOLD = "drools.parallelRulesBuildThreshold";
+
+  static {
+    // Compile in the calling thread. With more than ten rules in a package the compiler would
+    // otherwise build them on a fork-join pool, where an OutOfMemoryError is swallowed into
+    // "compilation failed or interrupted", or, thrown again from the pool's handler, leaves the
+    // JVM hanging: on a small heap the grower must read "out of memory, try -Xmx", not an
+    // internal error or a silent hang. The compiler reads the option only from system
+    // properties or a kmodule.xml, which would need Drools' XML module; one set on the command
+    // line is kept.
+    if (System.getProperty(PARALLEL_BUILD_THRESHOLD) == null) {
+      System.setProperty(PARALLEL_BUILD_THRESHOLD, Integer.toString(Integer.MAX_VALUE));
+    }
+  }
+
   private static final Pattern PACKAGE =
       Pattern.compile("(?m)^\\s*package\\s+([\\w.]+)\\s*;?");
 

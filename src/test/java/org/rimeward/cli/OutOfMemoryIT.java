@@ -44,4 +44,33 @@ class OutOfMemoryIT {
         "audit", "list", "--farm", farm.toString())).directory(tmp.toFile()), 300);
     assertThat(list.out()).as("the first run only").contains("2026-04-14");
   }
+
+  /**
+   * Out of memory inside the rule compiler, with no compiled rules cached: the compiler's worker
+   * threads once swallowed the error into "compilation failed" (an internal error), or threw it
+   * again from the pool's handler and left the JVM hanging until killed.
+   */
+  @Test
+  void outOfMemoryWhileCompilingTheRulesSaysSoToo() throws Exception {
+    Path farm = tmp.resolve("farm");
+    Files.createDirectories(farm);
+    for (String f : List.of("farm.yaml", "forecast.csv")) {
+      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
+    }
+    for (String gc : List.of("-XX:+UseSerialGC", "-XX:+UseG1GC")) {
+      String cache = "-Drimeward.cache=" + tmp.resolve("empty-cache" + gc.hashCode());
+      ChildProcess.Run r = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(
+          List.of("-Xmx16m", gc, cache), "plan", "--farm", farm.toString()))
+          .directory(tmp.toFile()), 300);
+      assertThat(r.exit()).as(gc + ": " + r.err()).isEqualTo(1);
+      assertThat(r.err().strip().lines().toList()).as(r.err()).singleElement().satisfies(line ->
+          assertThat(line).startsWith("rimeward: out of memory with a ").contains("-Xmx")
+              .doesNotContain("internal error", "Exception", "java.lang"));
+    }
+    assertThat(farm.resolve("audit.db")).as("nothing recorded").satisfiesAnyOf(
+        db -> assertThat(db).doesNotExist(),
+        db -> assertThat(ChildProcess.run(new ProcessBuilder(ChildProcess.jar(List.of(), "audit",
+            "list", "--farm", farm.toString())).directory(tmp.toFile()), 300).out())
+            .doesNotContain("2026-04-14"));
+  }
 }
