@@ -45,11 +45,16 @@ public final class RuleTrust {
     return new RuleTrust(hashes);
   }
 
+  /** Whether a rule file with this SHA-256 (lower-case hex) is trusted. */
+  public boolean trusts(String sha256) {
+    return trusted.contains(sha256);
+  }
+
   /** The recorded rule files of {@code run} that match no trusted rule file, by name. */
   public List<String> untrusted(RunRecord run) {
     List<String> out = new ArrayList<>();
     for (RecordedInput in : run.inputs()) {
-      if (in.kind() == InputKind.RULE && !trusted.contains(in.sha256())) {
+      if (in.kind() == InputKind.RULE && !trusts(in.sha256())) {
         out.add(in.name());
       }
     }
