@@ -55,7 +55,7 @@ public final class BlockWhy {
         + run.runId() + " planned no block '" + blockId + "'; it planned "
         + String.join(", ", run.blocks().stream().map(RecordedBlock::blockId).toList())));
     PlanDocument plan = RunReport.plan(run);
-    PlanDocument.Block decision = read(block.decisionJson(), run);
+    PlanDocument.Block decision = block.decision();
     Map<Integer, String> kinds = new TreeMap<>();
     for (PlanDocument.Rule r : decision.rules()) {
       kinds.put(r.seq(), r.kind());
@@ -286,15 +286,6 @@ public final class BlockWhy {
     }
     PlanDocument.Cover c = (PlanDocument.Cover) a;
     return "covers on from " + Json.time(c.deployStart()) + ", off at " + Json.time(c.remove());
-  }
-
-  private static PlanDocument.Block read(String json, RunRecord run) {
-    try {
-      return JSON.readValue(json, PlanDocument.Block.class);
-    } catch (JsonProcessingException e) {
-      throw new AuditIntegrityException("run " + run.runId() + ": a recorded block decision cannot"
-          + " be read back; run 'rimeward audit verify'");
-    }
   }
 
   private static JsonNode values(String json, RunRecord run) {

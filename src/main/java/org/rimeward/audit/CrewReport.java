@@ -1,7 +1,6 @@
 package org.rimeward.audit;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -12,6 +11,7 @@ import java.time.format.DateTimeFormatter;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import org.rimeward.plan.PlanDocument;
 
 /**
  * What was advised beside what was done: a run's planned actions next to the crew's recorded
@@ -33,16 +33,16 @@ public final class CrewReport {
         continue;
       }
       List<CrewAction> done = actions.stream().filter(a -> a.blockId().equals(b.blockId())).toList();
-      JsonNode decision = read(b.decisionJson());
-      if (done.isEmpty() && decision.path("actions").isEmpty()) {
+      List<PlanDocument.Action> advised = b.decision().actions();
+      if (done.isEmpty() && advised.isEmpty()) {
         continue;
       }
       any = true;
       s.append("  ").append(b.blockId()).append('\n');
-      for (JsonNode a : decision.path("actions")) {
+      for (PlanDocument.Action a : advised) {
         s.append("    advised: ").append(advised(a, zone)).append('\n');
       }
-      if (decision.path("actions").isEmpty()) {
+      if (advised.isEmpty()) {
         s.append("    advised: nothing\n");
       }
       for (CrewAction a : done) {
@@ -105,35 +105,24 @@ public final class CrewReport {
         off.map(t -> OffsetDateTime.ofInstant(t, zone).toString()).orElse("")};
   }
 
-  private static String advised(JsonNode a, ZoneId zone) {
-    if ("sprinkle".equals(a.path("method").asText())) {
-      return "sprinkle " + clock(a.path("start"), zone) + " → " + clock(a.path("stop"), zone)
-          + (a.path("source").isTextual() ? " from " + a.path("source").asText() : "");
+  private static String advised(PlanDocument.Action a, ZoneId zone) {
+    if (a instanceof PlanDocument.Sprinkle sp && !sp.isAdvised()) {
+      return "no sprinkling (not advised tonight)";
     }
-    if ("cover".equals(a.path("method").asText())) {
-      return "covers on from " + clock(a.path("deploy_start"), zone) + " (by "
-          + clock(a.path("deploy_by"), zone) + "), off at " + clock(a.path("remove"), zone);
+    if (a instanceof PlanDocument.Sprinkle sp && !sp.waterGranted()) {
+      return "no sprinkling (no water granted" + (sp.source() != null ? " from " + sp.source() : "")
+          + ")";
     }
-    return a.toString();
+    if (a instanceof PlanDocument.Sprinkle sp) {
+      return "sprinkle " + clock(sp.start(), zone) + " → " + clock(sp.stop(), zone)
+          + (sp.source() != null ? " from " + sp.source() : "");
+    }
+    PlanDocument.Cover c = (PlanDocument.Cover) a;
+    return "covers on from " + clock(c.deployStart(), zone) + " (by " + clock(c.deployBy(), zone)
+        + "), off at " + clock(c.remove(), zone);
   }
 
-  private static String clock(JsonNode n, ZoneId zone) {
-    if (!n.isTextual()) {
-      return "?";
-    }
-    try {
-      return CLOCK.format(OffsetDateTime.parse(n.asText()).atZoneSameInstant(zone));
-    } catch (java.time.format.DateTimeParseException e) {
-      return n.asText();
-    }
-  }
-
-  private static JsonNode read(String json) {
-    try {
-      return JSON.readTree(json);
-    } catch (JsonProcessingException e) {
-      throw new AuditIntegrityException("a recorded decision cannot be read back; run 'rimeward"
-          + " audit verify'");
-    }
+  private static String clock(OffsetDateTime t, ZoneId zone) {
+    return t == null ? "?" : CLOCK.format(t.atZoneSameInstant(zone));
   }
 }

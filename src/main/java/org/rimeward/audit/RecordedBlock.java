@@ -1,14 +1,17 @@
 package org.rimeward.audit;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
 import java.util.List;
 import java.util.Objects;
+import org.rimeward.io.Json;
+import org.rimeward.plan.PlanDocument;
 
 /**
  * The decision for one block in one run, with the rules that led to it in firing order.
  *
  * @param status {@code not-needed}, {@code protected}, {@code short-of-water} or
  *     {@code unprotected}, as in the plan
- * @param decisionJson the block's entry of the plan, or the planner's decision object, as JSON
+ * @param decisionJson the block's entry of the plan document, as JSON
  */
 public record RecordedBlock(String blockId, String status, String risk, boolean protectionNeeded,
     String decisionJson, List<RecordedRule> rules) {
@@ -28,6 +31,21 @@ public record RecordedBlock(String blockId, String status, String risk, boolean 
             + " but seq " + rules.get(i).seq() + " (" + rules.get(i).ruleId() + ") follows seq "
             + rules.get(i - 1).seq());
       }
+    }
+  }
+
+  /**
+   * The block's entry of the plan document, read back: what {@code why}, {@code show} and the
+   * crew's actions are compared with.
+   *
+   * @throws AuditIntegrityException when the recorded JSON does not read as a plan's block
+   */
+  public PlanDocument.Block decision() {
+    try {
+      return Json.mapper().readValue(decisionJson, PlanDocument.Block.class);
+    } catch (JsonProcessingException e) {
+      throw new AuditIntegrityException("block " + blockId + ": the recorded decision cannot be"
+          + " read back; run 'rimeward audit verify'");
     }
   }
 }

@@ -1,8 +1,5 @@
 package org.rimeward.plan;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.time.OffsetDateTime;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
@@ -11,45 +8,41 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
+import java.util.Optional;
+import org.rimeward.io.Json;
 
 /**
- * What moved between an earlier plan for the night (as recorded, in the plan document's JSON) and
- * a re-plan: each block's status, sprinkling start and stop, covers on and off.
+ * What moved between an earlier plan for the night (as recorded, read back as a plan document)
+ * and a re-plan: each block's status, sprinkling start and stop, covers on and off.
  */
 public final class PlanChanges {
-  private static final ObjectMapper JSON = new ObjectMapper();
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
 
   private PlanChanges() {}
 
   /** The changes from {@code previousPlanJson} to {@code now}, in block order of {@code now}. */
   public static List<NightUpdate.Change> between(String previousPlanJson, Plan now) {
-    JsonNode before;
-    try {
-      before = JSON.readTree(previousPlanJson);
-    } catch (JsonProcessingException e) {
-      throw new IllegalStateException("the recorded plan cannot be read back", e);
-    }
-    JsonNode after = PlanJson.toTree(now);
+    PlanDocument before = PlanJson.read(previousPlanJson);
+    PlanDocument after = PlanDocuments.of(now);
     ZoneId zone = now.night().zone();
     String reason = reason(now);
     List<NightUpdate.Change> out = new ArrayList<>();
-    for (JsonNode b : after.path("blocks")) {
-      String id = b.path("block").asText();
-      JsonNode old = block(before, id);
-      if (old == null) {
+    for (PlanDocument.Block b : after.blocks()) {
+      String id = b.block();
+      Optional<PlanDocument.Block> found = before.block(id);
+      if (found.isEmpty()) {
         continue;
       }
-      compare(out, id, "status", old.path("status").asText(""), b.path("status").asText(""), reason,
-          false, zone);
-      compare(out, id, "start", time(old, "sprinkle", "start"), time(b, "sprinkle", "start"),
-          reason, true, zone);
-      compare(out, id, "stop", time(old, "sprinkle", "stop"), time(b, "sprinkle", "stop"), reason,
-          true, zone);
-      compare(out, id, "covers on", time(old, "cover", "deploy_start"),
-          time(b, "cover", "deploy_start"), reason, true, zone);
-      compare(out, id, "covers off", time(old, "cover", "remove"), time(b, "cover", "remove"),
-          reason, true, zone);
+      PlanDocument.Block old = found.get();
+      compare(out, id, "status", text(old.status()), text(b.status()), reason, false, zone);
+      compare(out, id, "start", time(old.sprinkle().map(PlanDocument.Sprinkle::start)),
+          time(b.sprinkle().map(PlanDocument.Sprinkle::start)), reason, true, zone);
+      compare(out, id, "stop", time(old.sprinkle().map(PlanDocument.Sprinkle::stop)),
+          time(b.sprinkle().map(PlanDocument.Sprinkle::stop)), reason, true, zone);
+      compare(out, id, "covers on", time(old.cover().map(PlanDocument.Cover::deployStart)),
+          time(b.cover().map(PlanDocument.Cover::deployStart)), reason, true, zone);
+      compare(out, id, "covers off", time(old.cover().map(PlanDocument.Cover::remove)),
+          time(b.cover().map(PlanDocument.Cover::remove)), reason, true, zone);
     }
     return out;
   }
@@ -87,22 +80,13 @@ public final class PlanChanges {
         bias < 0 ? "colder" : "warmer");
   }
 
-  private static JsonNode block(JsonNode plan, String id) {
-    for (JsonNode b : plan.path("blocks")) {
-      if (id.equals(b.path("block").asText())) {
-        return b;
-      }
-    }
-    return null;
+  private static String text(String value) {
+    return value == null ? "" : value;
   }
 
-  private static String time(JsonNode block, String method, String key) {
-    for (JsonNode a : block.path("actions")) {
-      if (method.equals(a.path("method").asText()) && a.path(key).isTextual()) {
-        return a.path(key).asText();
-      }
-    }
-    return "";
+  /** As the plan document writes it, so that a change's before and after read like its JSON. */
+  private static String time(Optional<OffsetDateTime> t) {
+    return t.map(Json::time).orElse("");
   }
 
   private static String clock(String iso, ZoneId zone) {

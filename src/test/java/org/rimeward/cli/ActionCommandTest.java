@@ -78,6 +78,27 @@ class ActionCommandTest {
   }
 
   @Test
+  void sprinklingABlockThePlanGaveNoWaterOrAdvisedAgainstIsWarnedAbout() {
+    // The demo plan shows west-pear's run with its times but advises against it (wind), and
+    // grants creek-rome no water: neither is advice to sprinkle.
+    Cli.Result windy = action("west-pear", "sprinkling-on", "--at", "00:30", "--by", "ana");
+    assertThat(windy.exitCode()).as(windy.toString()).isZero();
+    assertThat(windy.err()).contains("warning: the plan advised no sprinkling on west-pear tonight");
+    Cli.Result dry = action("creek-rome", "sprinkling-on", "--at", "00:30", "--by", "ana");
+    assertThat(dry.exitCode()).as(dry.toString()).isZero();
+    assertThat(dry.err()).contains("warning: the plan advised no sprinkling on creek-rome tonight");
+    // Near miss: a block whose run is advised and granted, turned on before its start.
+    Cli.Result early = action("lane-peach", "sprinkling-on", "--at", "00:30", "--by", "ana");
+    assertThat(early.err()).isEmpty();
+
+    Cli.Result why = Cli.run("audit", "why", "creek-rome", "--farm", farm.toString());
+    assertThat(why.out()).contains("advised: no sprinkling (no water granted from")
+        .doesNotContain("advised: sprinkle ?");
+    assertThat(Cli.run("audit", "why", "west-pear", "--farm", farm.toString()).out())
+        .contains("advised: no sprinkling (not advised tonight)");
+  }
+
+  @Test
   void auditWhyShowAndExportPutWhatWasDoneBesideWhatWasAdvised() throws Exception {
     action("field-berries", "sprinkling-on", "--at", "02:20", "--by", "ana", "--note", "pump 2");
     action("field-berries", "sprinkling-off", "--at", "08:40", "--by", "ana");
