@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.util.Map;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -45,10 +46,10 @@ final class CalcOutput {
   }
 
   static String temp(double c, UnitSystem units) {
-    return Quantities.format(c, Dimension.TEMPERATURE, units, 1);
+    return UnitFormat.of(units).temp(c);
   }
 
   static String delta(double c, UnitSystem units) {
-    return Quantities.format(c, Dimension.TEMPERATURE_DELTA, units, 1);
+    return UnitFormat.of(units).tempDelta(c);
   }
 }

@@ -12,8 +12,7 @@ import org.rimeward.crop.EditJournal;
 import org.rimeward.crop.ProfileEdit;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
-import org.rimeward.units.Dimension;
-import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -141,7 +140,7 @@ final class ProfileCommand implements Runnable {
   }
 
   static String temp(double c, UnitSystem units) {
-    return Quantities.format(c, Dimension.TEMPERATURE, units, 1);
+    return UnitFormat.of(units).temp(c);
   }
 
   /** Splits {@code CROP} or {@code CROP/VARIETY}; the variety is null when not given. */
