@@ -111,35 +111,34 @@ final class ActionCommand implements Callable<Integer> {
 
   /** A date-time with an offset, or local in the farm's zone; {@code option} names it in errors. */
   static Instant parseTime(String text, String option, ZoneId zone) {
+    return dateTime(text, zone).orElseThrow(() -> new BadInputException(option + ": '" + text
+        + "' is not a time; give 2026-04-15T00:30-07:00, or 2026-04-15T00:30 local to the farm ("
+        + zone + ")"));
+  }
+
+  /** A date-time with an offset, or local in {@code zone}; a space may stand for the T. */
+  private static java.util.Optional<Instant> dateTime(String text, ZoneId zone) {
     String t = text.strip().replaceFirst("^(\\d{4}-\\d{2}-\\d{2}) ", "$1T");
     try {
-      return OffsetDateTime.parse(t).toInstant();
+      return java.util.Optional.of(OffsetDateTime.parse(t).toInstant());
     } catch (DateTimeParseException e) {
       // not with an offset
     }
     try {
-      return LocalDateTime.parse(t).atZone(zone).toInstant();
+      return java.util.Optional.of(LocalDateTime.parse(t).atZone(zone).toInstant());
     } catch (DateTimeParseException e) {
-      throw new BadInputException(option + ": '" + text + "' is not a time; give"
-          + " 2026-04-15T00:30-07:00, or 2026-04-15T00:30 local to the farm (" + zone + ")");
+      return java.util.Optional.empty();
     }
   }
 
   /** A local clock time, a local date-time in the farm's zone, or a time with an offset. */
   static Instant parseAt(String text, ZoneId zone, Instant now) {
-    String t = text.strip().replaceFirst("^(\\d{4}-\\d{2}-\\d{2}) ", "$1T");
-    try {
-      return OffsetDateTime.parse(t).toInstant();
-    } catch (DateTimeParseException e) {
-      // not with an offset
+    java.util.Optional<Instant> full = dateTime(text, zone);
+    if (full.isPresent()) {
+      return full.get();
     }
     try {
-      return LocalDateTime.parse(t).atZone(zone).toInstant();
-    } catch (DateTimeParseException e) {
-      // not a date-time
-    }
-    try {
-      LocalTime clock = LocalTime.parse(t);
+      LocalTime clock = LocalTime.parse(text.strip());
       LocalDate today = now.plus(CLOCK_SKEW).atZone(zone).toLocalDate();
       Instant candidate = today.atTime(clock).atZone(zone).toInstant();
       return candidate.isAfter(now.plus(CLOCK_SKEW))
