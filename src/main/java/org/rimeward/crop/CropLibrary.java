@@ -9,6 +9,7 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Problems;
 import org.rimeward.io.TextFile;
 
 /**
@@ -75,8 +76,11 @@ public final class CropLibrary {
     try {
       String text = TextFile.read(f, TextFile.MAX_DOCUMENT_BYTES, "crop file",
           "give the crop-profiles folder with --crop-profiles DIR").text();
-      return CropFileReader.read(text, f.toString(),
-          name.substring(0, name.length() - EXTENSION.length()), problems);
+      Problems found = new Problems(f.toString());
+      Crop crop = CropFileReader.read(text, name.substring(0, name.length() - EXTENSION.length()),
+          found);
+      problems.addAll(found.all());
+      return crop;
     } catch (BadInputException e) {
       problems.add(e.getMessage());
       return null;
@@ -111,12 +115,9 @@ public final class CropLibrary {
               + " new-variety)" : c.varieties().stream().map(Variety::id)
               .collect(Collectors.joining(", ")))));
     }
-    List<String> problems = new ArrayList<>();
-    EffectiveProfile p = Inheritance.resolve(c, v, (line, msg) -> problems.add(c.file() + ":" + line
-        + ": " + msg));
-    if (!problems.isEmpty()) {
-      throw new BadInputException(String.join(System.lineSeparator(), problems));
-    }
+    Problems problems = new Problems(c.file());
+    EffectiveProfile p = Inheritance.resolve(c, v, problems::add);
+    problems.throwIfAny();
     return p;
   }
 

@@ -34,6 +34,7 @@ import org.rimeward.io.Yaml.Scalar;
 import org.rimeward.io.Yaml.SeqNode;
 import org.rimeward.io.BadInputException;
 import org.rimeward.io.BundledData;
+import org.rimeward.io.Problems;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
@@ -92,7 +93,7 @@ public final class ProfileEditor {
   private ProfileEdit newVariety(Loaded f, String variety, String name, String fromVariety,
       String offsetText, UnitSystem bareAs, String note, String by, EditJournal journal) {
     String crop = f.crop.id();
-    if (!CropFileReader.ID.matcher(variety).matches()) {
+    if (!CropFields.ID.matcher(variety).matches()) {
       throw new BadInputException("variety '" + variety + "' is not a kebab-case id; use lower case"
           + " letters, digits and single hyphens, e.g. honeycrisp or gala-early");
     }
@@ -289,7 +290,7 @@ public final class ProfileEditor {
           + " you can write and pass it with --crop-profiles DIR");
     }
     Path path = dir.resolve(crop + CropLibrary.EXTENSION);
-    if (!CropFileReader.ID.matcher(crop).matches() || !Files.isRegularFile(path)) {
+    if (!CropFields.ID.matcher(crop).matches() || !Files.isRegularFile(path)) {
       throw new BadInputException("unknown crop '" + crop + "' in " + dir + "; known crops: "
           + knownCrops());
     }
@@ -305,12 +306,12 @@ public final class ProfileEditor {
         org.rimeward.io.TextFile.MAX_DOCUMENT_BYTES, "crop file", "check --crop-profiles");
     byte[] bytes = file.bytes();
     String text = file.text();
-    List<String> problems = new ArrayList<>();
-    Crop c = CropFileReader.read(text, path.toString(), crop, problems);
+    Problems problems = new Problems(path.toString());
+    Crop c = CropFileReader.read(text, crop, problems);
     if (c == null) {
       throw new BadInputException("fix these problems in " + path + " before editing it"
           + " (rimeward profile check lists them):" + System.lineSeparator()
-          + String.join(System.lineSeparator(), problems));
+          + String.join(System.lineSeparator(), problems.all()));
     }
     return new Loaded(path, path.toString(), bytes, text, CropFileReader.parse(text, path.toString()), c);
   }
@@ -326,16 +327,17 @@ public final class ProfileEditor {
   }
 
   private Crop check(Loaded f, String edited) {
-    List<String> problems = new ArrayList<>();
+    Problems problems = new Problems(f.file);
     Crop c;
     try {
-      c = CropFileReader.read(edited, f.file, f.crop.id(), problems);
+      c = CropFileReader.read(edited, f.crop.id(), problems);
     } catch (BadInputException e) {
       throw new BadInputException("the change was not written: " + e.getMessage(), e);
     }
     if (c == null) {
       throw new BadInputException("the change was not written, because the file would then have"
-          + " these problems:" + System.lineSeparator() + String.join(System.lineSeparator(), problems));
+          + " these problems:" + System.lineSeparator()
+          + String.join(System.lineSeparator(), problems.all()));
     }
     return c;
   }

@@ -101,8 +101,8 @@ class ProfileCommandTest {
     Files.writeString(pear, Files.readString(pear).replace("t10: 26F", "t10: 26").replace("t90: 23F", "t90: 28F"));
     Cli.Result bad = Cli.run("profile", "check", "--crop-profiles", folder);
     assertThat(bad.exitCode()).isEqualTo(Main.BAD_INPUT);
-    assertThat(bad.err()).contains("have 2 problems").contains("pear.yaml:51: stage 'full-white' t10:"
-        + " '26' has no unit").contains("pear.yaml:58: stage 'first-bloom': t90 '28F' is not colder");
+    assertThat(bad.err()).contains("have 2 problems").contains("pear.yaml:51: stages[full-white].t10:"
+        + " '26' has no unit").contains("pear.yaml:58: stages[first-bloom].t90: '28F' is not colder");
   }
 
   @Test
