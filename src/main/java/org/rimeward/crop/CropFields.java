@@ -8,8 +8,8 @@ import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 
 /**
- * How the parts of a crop file read the values they share: kebab-case ids, and temperatures and
- * temperature differences as the source prints them. Each is a
+ * How the parts of a crop file read the values they share: kebab-case ids, temperatures and
+ * temperature differences as the source prints them, and yes/no flags. Each is a
  * {@link Fields.Parser}, so a bad value is one problem at its line and the reading goes on.
  */
 final class CropFields {
@@ -58,5 +58,15 @@ final class CropFields {
     } catch (IllegalArgumentException e) {
       throw new IllegalArgumentException(e.getMessage() + ", with the unit the source prints", e);
     }
+  }
+
+  /** A yes/no flag as YAML writes it: true or false. */
+  static Fields.Parser<Boolean> flag(String what) {
+    return t -> switch (t) {
+      case "true", "True", "TRUE" -> true;
+      case "false", "False", "FALSE" -> false;
+      default -> throw new IllegalArgumentException(Text.quote(t) + " is not true or false; "
+          + what);
+    };
   }
 }

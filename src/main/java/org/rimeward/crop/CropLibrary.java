@@ -101,6 +101,25 @@ public final class CropLibrary {
   }
 
   /**
+   * What a check tells though nothing is wrong, one line per stage with its file and line: each
+   * stage written without a {@code flowering} flag, how its BBCH code was read, and what to write.
+   */
+  public List<String> notes() {
+    List<String> out = new ArrayList<>();
+    for (Crop c : crops) {
+      for (Stage s : c.stages()) {
+        if (s.floweringFlag() == null) {
+          out.add(c.file() + ":" + s.line() + ": stages[" + s.id() + "]: has no flowering flag, so"
+              + " it is read from bbch " + s.bbch() + " as " + (s.flowering() ? "flowering" : "not"
+              + " flowering") + " (" + Stage.FIRST_FLOWERING_BBCH + " to " + Stage.LAST_FLOWERING_BBCH
+              + " flower); " + StageReader.FLOWERING_HINT);
+        }
+      }
+    }
+    return out;
+  }
+
+  /**
    * The stage table for {@code crop}, or for its variety when {@code varietyOrNull} is given.
    *
    * @throws BadInputException naming the unknown crop or variety and listing the known ones

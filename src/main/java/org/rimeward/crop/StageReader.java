@@ -11,11 +11,13 @@ import org.rimeward.io.Text;
 import org.rimeward.io.Yaml.SeqNode;
 
 /**
- * Reads a crop file's {@code stages}: each stage's id, name, BBCH code, T10 and T90 (or a single
- * tolerance) and source, in order of development.
+ * Reads a crop file's {@code stages}: each stage's id, name, BBCH code, flowering flag, T10 and
+ * T90 (or a single tolerance) and source, in order of development.
  */
 final class StageReader {
   private static final Pattern BBCH = Pattern.compile("\\d{2}");
+  static final String FLOWERING_HINT = "write flowering: true where the stage's flowers are open"
+      + " (first bloom to full bloom), false before (buds) and after (petal fall, fruit set)";
 
   private final Fields top;
   private final Double margin;
@@ -46,7 +48,7 @@ final class StageReader {
     StageReader r = new StageReader(top, margin);
     for (int i = 0; i < list.items().size(); i++) {
       Fields s = Fields.of(list.items().get(i), "stages item " + (i + 1),
-          "id, name, bbch, t10, t90 and source", top.problems());
+          "id, name, bbch, flowering, t10, t90 and source", top.problems());
       Stage stage = s == null ? null : r.stage(s);
       if (stage != null) {
         out.add(stage);
@@ -67,11 +69,13 @@ final class StageReader {
             + " must be unique, so rename or remove one");
       }
     }
-    s.allow("id", "name", "bbch", "t10", "t90", "tolerance", "as_printed", "source", "note");
+    s.allow("id", "name", "bbch", "flowering", "t10", "t90", "tolerance", "as_printed", "source",
+        "note");
     String name = s.text("name", "add the stage's name as the source prints it, e.g. name: Tight"
         + " cluster");
     String bbch = s.value("bbch", StageReader::bbch, "add the stage's two-digit BBCH code, quoted,"
         + " e.g. bbch: \"57\"");
+    Boolean flowering = s.optionalValue("flowering", CropFields.flag(FLOWERING_HINT));
     String source = s.text("source", "add the table the values come from, as its publisher"
         + " titles it");
     String note = s.optionalText("note");
@@ -90,7 +94,7 @@ final class StageReader {
       }
       return null;
     }
-    Stage stage = new Stage(id, name, bbch, t.t10C(), t.t90C(), t.toleranceC(), source,
+    Stage stage = new Stage(id, name, bbch, flowering, t.t10C(), t.t90C(), t.toleranceC(), source,
         note, s.line());
     if (previous != null && stage.bbchCode() <= previous.bbchCode()) {
       s.problem("bbch", s.quoted("bbch") + " is not after the previous stage '" + previous.id()

@@ -67,7 +67,7 @@ class ValidationTest {
     String m = problem(CROP.replace("    t90: 25F\n    source: test table\n  - id: post-bloom",
         "    t90: 25F\n    sorce: x\n    source: test table\n  - id: post-bloom"));
     assertThat(m).contains("apple.yaml:18: stages[full-bloom].sorce: unknown key; allowed here: id,"
-        + " name, bbch, t10").contains("(check the spelling)");
+        + " name, bbch, flowering").contains("(check the spelling)");
   }
 
   @Test
