@@ -2,6 +2,7 @@ package org.rimeward.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import org.rimeward.crop.Crop;
 import org.rimeward.crop.CropLibrary;
 import org.rimeward.io.BadInputException;
@@ -35,6 +36,12 @@ final class ProfileCheckCommand implements Runnable {
     PrintWriter out = spec.commandLine().getOut();
     out.printf("OK: %d crop files, %d stages, %d varieties in %s%n", lib.crops().size(), stages,
         varieties, dir);
+    List<String> notes = lib.notes();
+    if (!notes.isEmpty()) {
+      out.printf("%d stage%s no flowering flag:%n", notes.size(),
+          notes.size() == 1 ? " has" : "s have");
+      notes.forEach(n -> out.println("  " + n));
+    }
     out.flush();
   }
 }

@@ -57,6 +57,7 @@ final class ProfileShowCommand implements Runnable {
       n.put("id", s.id());
       n.put("name", s.name());
       n.put("bbch", s.bbch());
+      n.put("flowering", s.flowering());
       n.put("t10_c", s.t10C());
       n.put("t90_c", s.t90C());
       n.put("provenance", s.provenance().name().toLowerCase(java.util.Locale.ROOT));
@@ -71,9 +72,11 @@ final class ProfileShowCommand implements Runnable {
         + (crop.referenceVariety() == null ? "" : "; base table measured on " + crop.referenceVariety())
         + ". File: " + crop.file());
     out.println();
-    out.printf("%-22s %4s  %10s  %10s  %s%n", "STAGE", "BBCH", "T10", "T90", "FROM");
+    out.printf("%-22s %4s  %-9s  %10s  %10s  %s%n", "STAGE", "BBCH", "FLOWERING", "T10", "T90",
+        "FROM");
     for (EffectiveStage s : p.stages()) {
-      out.printf("%-22s %4s  %10s  %10s  %s%n", s.id(), s.bbch(), ProfileCommand.temp(s.t10C(), units),
+      out.printf("%-22s %4s  %-9s  %10s  %10s  %s%n", s.id(), s.bbch(), s.flowering() ? "yes" : "no",
+          ProfileCommand.temp(s.t10C(), units),
           ProfileCommand.temp(s.t90C(), units), s.provenance().name().toLowerCase(java.util.Locale.ROOT));
     }
     out.println();

@@ -9,6 +9,7 @@ import java.util.Optional;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.Problems;
 import org.rimeward.io.TextFile;
 
 /**
@@ -75,8 +76,11 @@ public final class CropLibrary {
     try {
       String text = TextFile.read(f, TextFile.MAX_DOCUMENT_BYTES, "crop file",
           "give the crop-profiles folder with --crop-profiles DIR").text();
-      return CropFileReader.read(text, f.toString(),
-          name.substring(0, name.length() - EXTENSION.length()), problems);
+      Problems found = new Problems(f.toString());
+      Crop crop = CropFileReader.read(text, name.substring(0, name.length() - EXTENSION.length()),
+          found);
+      problems.addAll(found.all());
+      return crop;
     } catch (BadInputException e) {
       problems.add(e.getMessage());
       return null;
@@ -97,6 +101,25 @@ public final class CropLibrary {
   }
 
   /**
+   * What a check tells though nothing is wrong, one line per stage with its file and line: each
+   * stage written without a {@code flowering} flag, how its BBCH code was read, and what to write.
+   */
+  public List<String> notes() {
+    List<String> out = new ArrayList<>();
+    for (Crop c : crops) {
+      for (Stage s : c.stages()) {
+        if (s.floweringFlag() == null) {
+          out.add(c.file() + ":" + s.line() + ": stages[" + s.id() + "]: has no flowering flag, so"
+              + " it is read from bbch " + s.bbch() + " as " + (s.flowering() ? "flowering" : "not"
+              + " flowering") + " (" + Stage.FIRST_FLOWERING_BBCH + " to " + Stage.LAST_FLOWERING_BBCH
+              + " flower); " + StageReader.FLOWERING_HINT);
+        }
+      }
+    }
+    return out;
+  }
+
+  /**
    * The stage table for {@code crop}, or for its variety when {@code varietyOrNull} is given.
    *
    * @throws BadInputException naming the unknown crop or variety and listing the known ones
@@ -111,12 +134,9 @@ public final class CropLibrary {
               + " new-variety)" : c.varieties().stream().map(Variety::id)
               .collect(Collectors.joining(", ")))));
     }
-    List<String> problems = new ArrayList<>();
-    EffectiveProfile p = Inheritance.resolve(c, v, (line, msg) -> problems.add(c.file() + ":" + line
-        + ": " + msg));
-    if (!problems.isEmpty()) {
-      throw new BadInputException(String.join(System.lineSeparator(), problems));
-    }
+    Problems problems = new Problems(c.file());
+    EffectiveProfile p = Inheritance.resolve(c, v, problems::add);
+    problems.throwIfAny();
     return p;
   }
 

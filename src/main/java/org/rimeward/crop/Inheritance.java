@@ -70,7 +70,8 @@ final class Inheritance {
         continue;
       }
       String source = src10.equals(src90) ? src10 : "t10: " + src10 + " | t90: " + src90;
-      out.add(new EffectiveStage(s.id(), s.name(), s.bbch(), t10, t90, source, prov));
+      out.add(new EffectiveStage(s.id(), s.name(), s.bbch(), s.flowering(), t10, t90, source,
+          prov));
     }
     return new EffectiveProfile(crop.id(), variety == null ? null : variety.id(), out);
   }

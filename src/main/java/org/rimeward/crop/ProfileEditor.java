@@ -1,8 +1,6 @@
 package org.rimeward.crop;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.time.LocalDate;
@@ -12,7 +10,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.stream.Collectors;
-import java.util.stream.Stream;
 import static org.rimeward.crop.YamlSplice.copiedOverrides;
 import static org.rimeward.crop.YamlSplice.copyScalar;
 import static org.rimeward.crop.YamlSplice.dashIndent;
@@ -33,7 +30,6 @@ import org.rimeward.io.Yaml.Node;
 import org.rimeward.io.Yaml.Scalar;
 import org.rimeward.io.Yaml.SeqNode;
 import org.rimeward.io.BadInputException;
-import org.rimeward.io.BundledData;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
 import org.rimeward.units.UnitSystem;
@@ -52,18 +48,17 @@ public final class ProfileEditor {
     void write(Path target, String content) throws IOException;
   }
 
-  private final Path dir;
   private final Clock clock;
-  private final TextWriter writer;
+  private final CropFileEdits files;
 
   public ProfileEditor(Path dir, Clock clock) {
     this(dir, clock, CropFileWriter::replace);
   }
 
   public ProfileEditor(Path dir, Clock clock, TextWriter writer) {
-    this.dir = Objects.requireNonNull(dir, "dir");
     this.clock = Objects.requireNonNull(clock, "clock");
-    this.writer = Objects.requireNonNull(writer, "writer");
+    this.files = new CropFileEdits(Objects.requireNonNull(dir, "dir"),
+        Objects.requireNonNull(writer, "writer"));
   }
 
   /**
@@ -85,30 +80,30 @@ public final class ProfileEditor {
   public ProfileEdit newVariety(String crop, String variety, String name, String fromVariety,
       String offsetText, UnitSystem bareAs, String note, String by, EditJournal journal) {
     requireNote(note, by);
-    return locked(crop, f -> newVariety(f, variety, name, fromVariety, offsetText, bareAs, note,
+    return files.locked(crop, f -> newVariety(f, variety, name, fromVariety, offsetText, bareAs, note,
         by, journal));
   }
 
-  private ProfileEdit newVariety(Loaded f, String variety, String name, String fromVariety,
+  private ProfileEdit newVariety(CropFileEdits.Loaded f, String variety, String name, String fromVariety,
       String offsetText, UnitSystem bareAs, String note, String by, EditJournal journal) {
-    String crop = f.crop.id();
-    if (!CropFileReader.ID.matcher(variety).matches()) {
+    String crop = f.crop().id();
+    if (!CropFields.ID.matcher(variety).matches()) {
       throw new BadInputException("variety '" + variety + "' is not a kebab-case id; use lower case"
           + " letters, digits and single hyphens, e.g. honeycrisp or gala-early");
     }
-    f.crop.variety(variety).ifPresent(v -> {
-      throw BadInputException.at(f.file + ":" + v.line(), "variety '" + variety + "' already"
+    f.crop().variety(variety).ifPresent(v -> {
+      throw BadInputException.at(f.file() + ":" + v.line(), "variety '" + variety + "' already"
           + " exists; change its values with rimeward profile set");
     });
-    String nl = newline(f.text);
+    String nl = newline(f.text());
     Map<String, String> fields = new LinkedHashMap<>();
     fields.put("id", variety);
     fields.put("name", quote(name == null || name.isBlank() ? variety : name.strip()));
     MapNode from = null;
     if (fromVariety != null) {
-      f.crop.variety(fromVariety).orElseThrow(() -> unknownVariety(f.crop, fromVariety));
-      from = varietyNode(f.root, fromVariety);
-      copyScalar(f.text, from, "hardiness_offset", fields);
+      f.crop().variety(fromVariety).orElseThrow(() -> unknownVariety(f.crop(), fromVariety));
+      from = varietyNode(f.root(), fromVariety);
+      copyScalar(f.text(), from, "hardiness_offset", fields);
       Node ex = from.get("offset_except");
       if (ex instanceof SeqNode es) {
         fields.put("offset_except", es.items().stream().map(n -> ((Scalar) n).text())
@@ -124,31 +119,31 @@ public final class ProfileEditor {
     fields.put("set_by", quote(by.strip()));
     fields.put("set_on", quote(today()));
 
-    Node vs = f.root.get("varieties");
+    Node vs = f.root().get("varieties");
     String edited;
     if (vs == null || vs instanceof Scalar sc && sc.isNull()) {
-      String base = vs == null ? f.text : remove(f.text, f.root.entries().get("varieties"), nl);
-      String block = item(fields, "  ", nl) + copiedOverrides(f.text, from, "    ", nl);
+      String base = vs == null ? f.text() : remove(f.text(), f.root().entries().get("varieties"), nl);
+      String block = item(fields, "  ", nl) + copiedOverrides(f.text(), from, "    ", nl);
       edited = ensureNewline(base, nl) + nl + "varieties:" + nl + block;
     } else if (vs instanceof SeqNode seq && !seq.flow()) {
-      String dash = dashIndent(f.file, f.text, seq);
-      String block = item(fields, dash, nl) + copiedOverrides(f.text, from, dash + "  ", nl);
-      edited = insertAfterLineOf(f.text, seq.end(), block, nl);
+      String dash = dashIndent(f.file(), f.text(), seq);
+      String block = item(fields, dash, nl) + copiedOverrides(f.text(), from, dash + "  ", nl);
+      edited = insertAfterLineOf(f.text(), seq.end(), block, nl);
     } else if (vs instanceof SeqNode seq && seq.items().isEmpty()) {
       String dash = "  ";
-      String block = item(fields, dash, nl) + copiedOverrides(f.text, from, dash + "  ", nl);
-      edited = replaceFlowWithBlock(f.text, seq, block, nl);
+      String block = item(fields, dash, nl) + copiedOverrides(f.text(), from, dash + "  ", nl);
+      edited = replaceFlowWithBlock(f.text(), seq, block, nl);
     } else {
-      throw BadInputException.at(f.file + ":" + vs.line(), "varieties are written in flow style"
+      throw BadInputException.at(f.file() + ":" + vs.line(), "varieties are written in flow style"
           + " ([...]); write them as a block list ('- id: ...') so they can be edited here");
     }
-    Crop after = check(f, edited);
+    Crop after = files.check(f, edited);
     Variety v = after.variety(variety).orElseThrow(() -> new IllegalStateException(
         "the new variety was not found after the edit; nothing written"));
     Double offset = v.hardinessOffsetC() == 0 ? null : v.hardinessOffsetC();
-    ProfileEdit edit = new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, null,
+    ProfileEdit edit = new ProfileEdit(clock.instant(), by.strip(), f.file(), crop, variety, null,
         "variety", null, offset, note.strip());
-    commit(f, edited, List.of(edit), journal);
+    files.commit(f, edited, List.of(edit), journal);
     return edit;
   }
 
@@ -177,21 +172,21 @@ public final class ProfileEditor {
           + crop + "'; add a variety with rimeward profile new-variety " + crop + "/NAME --note ...,"
           + " then set its values");
     }
-    return locked(crop, f -> set(f, variety, stage, t10Text, t90Text, bareAs, note, by, journal));
+    return files.locked(crop, f -> set(f, variety, stage, t10Text, t90Text, bareAs, note, by, journal));
   }
 
-  private List<ProfileEdit> set(Loaded f, String variety, String stage, String t10Text,
+  private List<ProfileEdit> set(CropFileEdits.Loaded f, String variety, String stage, String t10Text,
       String t90Text, UnitSystem bareAs, String note, String by, EditJournal journal) {
-    String crop = f.crop.id();
-    Variety v = f.crop.variety(variety).orElseThrow(() -> unknownVariety(f.crop, variety));
-    f.crop.stage(stage).orElseThrow(() -> new BadInputException("unknown stage '" + stage
-        + "' of crop '" + crop + "'; known stages: " + f.crop.stages().stream().map(Stage::id)
+    String crop = f.crop().id();
+    Variety v = f.crop().variety(variety).orElseThrow(() -> unknownVariety(f.crop(), variety));
+    f.crop().stage(stage).orElseThrow(() -> new BadInputException("unknown stage '" + stage
+        + "' of crop '" + crop + "'; known stages: " + f.crop().stages().stream().map(Stage::id)
         .collect(Collectors.joining(", "))));
-    EffectiveStage before = Inheritance.resolve(f.crop, v, (l, m) -> { }).stage(stage).orElseThrow();
+    EffectiveStage before = Inheritance.resolve(f.crop(), v, (l, m) -> { }).stage(stage).orElseThrow();
     Double t10 = t10Text == null ? null : Quantities.parse(t10Text, Dimension.TEMPERATURE, "--t10", bareAs);
     Double t90 = t90Text == null ? null : Quantities.parse(t90Text, Dimension.TEMPERATURE, "--t90", bareAs);
 
-    String nl = newline(f.text);
+    String nl = newline(f.text());
     Map<String, String> fields = new LinkedHashMap<>();
     if (t10Text != null) {
       fields.put("t10", withUnit(t10Text, bareAs));
@@ -203,13 +198,13 @@ public final class ProfileEditor {
     fields.put("set_by", quote(by.strip()));
     fields.put("set_on", quote(today()));
 
-    MapNode vnode = varietyNode(f.root, variety);
+    MapNode vnode = varietyNode(f.root(), variety);
     Node ov = vnode.get("overrides");
     String edited;
     MapNode existing = ov instanceof SeqNode s ? overrideNode(s, stage) : null;
     if (existing != null) {
       if (existing.get("tolerance") != null) {
-        throw BadInputException.at(f.file + ":" + existing.line(), "the " + variety + " override of '"
+        throw BadInputException.at(f.file() + ":" + existing.line(), "the " + variety + " override of '"
             + stage + "' gives a single tolerance; change the tolerance in the file by hand");
       }
       // A new note must not wipe the earlier observation behind the override; keep it after the
@@ -221,26 +216,26 @@ public final class ProfileEditor {
             + (who != null && when != null ? ", " : "") + (when == null ? "" : when) + ")";
         fields.put("note", quote(note.strip() + "; earlier" + earlier + ": " + old.text().strip()));
       }
-      edited = setKeys(f.file, f.text, existing, fields, nl);
+      edited = setKeys(f.file(), f.text(), existing, fields, nl);
     } else {
       Map<String, String> item = new LinkedHashMap<>();
       item.put("stage", stage);
       item.putAll(fields);
       if (ov == null) {
         String ind = " ".repeat(vnode.col() - 1);
-        edited = insertAfterLineOf(f.text, vnode.end(), ind + "overrides:" + nl
+        edited = insertAfterLineOf(f.text(), vnode.end(), ind + "overrides:" + nl
             + item(item, ind + "  ", nl), nl);
       } else if (ov instanceof SeqNode seq && !seq.flow()) {
-        edited = insertAfterLineOf(f.text, seq.end(), item(item, dashIndent(f.file, f.text, seq), nl), nl);
+        edited = insertAfterLineOf(f.text(), seq.end(), item(item, dashIndent(f.file(), f.text(), seq), nl), nl);
       } else if (ov instanceof SeqNode seq && seq.items().isEmpty()) {
-        edited = replaceFlowWithBlock(f.text, seq,
+        edited = replaceFlowWithBlock(f.text(), seq,
             item(item, " ".repeat(vnode.col() - 1) + "  ", nl), nl);
       } else {
-        throw BadInputException.at(f.file + ":" + ov.line(), "the overrides of " + variety
+        throw BadInputException.at(f.file() + ":" + ov.line(), "the overrides of " + variety
             + " are written in flow style; write them as a block list so they can be edited here");
       }
     }
-    Crop after = check(f, edited);
+    Crop after = files.check(f, edited);
     Variety va = after.variety(variety).orElseThrow();
     EffectiveStage now = Inheritance.resolve(after, va, (l, m) -> { }).stage(stage).orElseThrow();
     if (t10 != null && Math.abs(now.t10C() - t10) > 1e-9 || t90 != null && Math.abs(now.t90C() - t90) > 1e-9) {
@@ -249,134 +244,17 @@ public final class ProfileEditor {
     }
     List<ProfileEdit> edits = new ArrayList<>();
     if (t10 != null) {
-      edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, stage, "t10",
+      edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file(), crop, variety, stage, "t10",
           before.t10C(), now.t10C(), note.strip()));
     }
     if (t90 != null) {
-      edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file, crop, variety, stage, "t90",
+      edits.add(new ProfileEdit(clock.instant(), by.strip(), f.file(), crop, variety, stage, "t90",
           before.t90C(), now.t90C(), note.strip()));
     }
-    commit(f, edited, edits, journal);
+    files.commit(f, edited, edits, journal);
     return edits;
   }
 
-  private record Loaded(Path path, String file, byte[] bytes, String text, MapNode root,
-      Crop crop) {}
-
-  /**
-   * Runs {@code edit} on the crop file holding its lock: the file is read, edited and replaced
-   * by one program at a time, so two edits at once both land.
-   */
-  @SuppressWarnings("try") // the lock is held for the block's duration, not read
-  private <T> T locked(String crop, java.util.function.Function<Loaded, T> edit) {
-    Path path = cropFile(crop);
-    Path real;
-    try {
-      real = CropFileWriter.target(path);
-    } catch (IOException e) {
-      throw new BadInputException(path + ": cannot be followed to its file (" + e.getMessage()
-          + ")", e);
-    }
-    try (CropFileLock lock = CropFileLock.acquire(real)) {
-      return edit.apply(load(crop, path));
-    }
-  }
-
-  private Path cropFile(String crop) {
-    if (BundledData.isReadOnly(dir)) {
-      throw new BadInputException("the crop profiles in use (" + dir + ") are the copy packed inside"
-          + " the rimeward jar, which cannot be changed. Copy the crop-profiles folder somewhere"
-          + " you can write and pass it with --crop-profiles DIR");
-    }
-    Path path = dir.resolve(crop + CropLibrary.EXTENSION);
-    if (!CropFileReader.ID.matcher(crop).matches() || !Files.isRegularFile(path)) {
-      throw new BadInputException("unknown crop '" + crop + "' in " + dir + "; known crops: "
-          + knownCrops());
-    }
-    if (!Files.isWritable(path)) {
-      throw new BadInputException(path + ": permission denied: the file cannot be written; check"
-          + " its permissions or pass a folder you can write with --crop-profiles DIR");
-    }
-    return path;
-  }
-
-  private Loaded load(String crop, Path path) {
-    org.rimeward.io.TextFile file = org.rimeward.io.TextFile.read(path,
-        org.rimeward.io.TextFile.MAX_DOCUMENT_BYTES, "crop file", "check --crop-profiles");
-    byte[] bytes = file.bytes();
-    String text = file.text();
-    List<String> problems = new ArrayList<>();
-    Crop c = CropFileReader.read(text, path.toString(), crop, problems);
-    if (c == null) {
-      throw new BadInputException("fix these problems in " + path + " before editing it"
-          + " (rimeward profile check lists them):" + System.lineSeparator()
-          + String.join(System.lineSeparator(), problems));
-    }
-    return new Loaded(path, path.toString(), bytes, text, CropFileReader.parse(text, path.toString()), c);
-  }
-
-  private String knownCrops() {
-    try (Stream<Path> s = Files.list(dir)) {
-      return s.map(p -> p.getFileName().toString()).filter(n -> n.endsWith(CropLibrary.EXTENSION))
-          .map(n -> n.substring(0, n.length() - CropLibrary.EXTENSION.length())).sorted()
-          .collect(Collectors.joining(", "));
-    } catch (IOException e) {
-      return "(the folder cannot be listed)";
-    }
-  }
-
-  private Crop check(Loaded f, String edited) {
-    List<String> problems = new ArrayList<>();
-    Crop c;
-    try {
-      c = CropFileReader.read(edited, f.file, f.crop.id(), problems);
-    } catch (BadInputException e) {
-      throw new BadInputException("the change was not written: " + e.getMessage(), e);
-    }
-    if (c == null) {
-      throw new BadInputException("the change was not written, because the file would then have"
-          + " these problems:" + System.lineSeparator() + String.join(System.lineSeparator(), problems));
-    }
-    return c;
-  }
-
-  /**
-   * Records the change as pending, replaces the file, then records it as written. The file is not
-   * touched unless the journal took the pending record.
-   */
-  private void commit(Loaded f, String edited, List<ProfileEdit> edits, EditJournal journal) {
-    Path real;
-    try {
-      real = CropFileWriter.target(f.path);
-    } catch (IOException e) {
-      throw new BadInputException(f.file + ": cannot be followed to its file (" + e.getMessage()
-          + "); the file is unchanged", e);
-    }
-    PendingChange change = new PendingChange(real, PendingChange.sha256(f.bytes),
-        PendingChange.sha256(edited), edits);
-    journal.beforeWrite(change);
-    try {
-      writer.write(f.path, edited);
-    } catch (java.nio.file.AccessDeniedException e) {
-      notWritten(journal, change, "permission denied");
-      throw new BadInputException(f.file + ": permission denied (" + e.getMessage() + "); the file"
-          + " is unchanged", e);
-    } catch (IOException e) {
-      notWritten(journal, change, e.getMessage());
-      throw new BadInputException(f.file + ": the change could not be written (" + e.getMessage()
-          + "); the file is unchanged", e);
-    }
-    journal.afterWrite(change);
-  }
-
-  /** Tells the journal the write failed; the write's own error is what the user must see. */
-  private static void notWritten(EditJournal journal, PendingChange change, String why) {
-    try {
-      journal.notWritten(change, why);
-    } catch (RuntimeException e) {
-      // The pending change stays unsettled; the next command finds the old file and settles it.
-    }
-  }
 
   private static void requireNote(String note, String by) {
     if (note == null || note.isBlank()) {

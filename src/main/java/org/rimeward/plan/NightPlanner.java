@@ -307,21 +307,12 @@ public final class NightPlanner {
             + String.join(", ", profile.stages().stream().map(EffectiveStage::id).toList())));
     var sprinklers = b.sprinklers();
     var covers = b.covers();
-    return new BlockFact(b.id(), b.crop(), b.variety(), stage.id(), stage.name(), isBloom(stage),
+    return new BlockFact(b.id(), b.crop(), b.variety(), stage.id(), stage.name(), stage.flowering(),
         b.areaHa(), stage.t10C(), stage.t90C(), stage.source(), b.coldAirOffsetC(),
         b.cropValuePerHa().orElse(Double.NaN), sprinklers.isPresent(),
         sprinklers.map(s -> s.rateMmH()).orElse(0.0), sprinklers.map(s -> s.sourceId()).orElse(null),
         covers.isPresent(), covers.map(c -> c.protectionC()).orElse(0.0),
         covers.map(c -> c.protectionSource()).orElse(null), covers.map(c -> c.deployHours()).orElse(0.0));
-  }
-
-  /** Open flowers: a stage named for bloom, or BBCH principal stage 6 (flowering). */
-  static boolean isBloom(EffectiveStage s) {
-    if (s.id().contains("bloom")) {
-      return true;
-    }
-    String digits = s.bbch() == null ? "" : s.bbch().replaceAll("[^0-9].*$", "");
-    return digits.length() == 2 && digits.charAt(0) == '6';
   }
 
   static PlanInputs inputsOf(Farm farm, byte[] farmBytes, Forecast forecast, byte[] forecastBytes,

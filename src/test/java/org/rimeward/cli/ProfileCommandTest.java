@@ -52,13 +52,14 @@ class ProfileCommandTest {
     Cli.Result r = Cli.run("--units", "us", "profile", "show", "apple/rome-beauty", "--crop-profiles", folder);
     assertThat(r.exitCode()).as(r.toString()).isZero();
     // WSU EB0913 full bloom 28/25 °F, Rome Beauty 2 °F hardier: 26/23 °F; post bloom unchanged.
-    assertThat(r.out()).containsPattern("full-bloom\\s+65\\s+26\\.0 °F\\s+23\\.0 °F\\s+offset");
-    assertThat(r.out()).containsPattern("post-bloom\\s+69\\s+28\\.0 °F\\s+25\\.0 °F\\s+base");
+    // The variety keeps its crop's flowering flag: open flowers at full bloom, none after petal fall.
+    assertThat(r.out()).containsPattern("full-bloom\\s+65\\s+yes\\s+26\\.0 °F\\s+23\\.0 °F\\s+offset");
+    assertThat(r.out()).containsPattern("post-bloom\\s+69\\s+no\\s+28\\.0 °F\\s+25\\.0 °F\\s+base");
     assertThat(r.out()).contains("Rome Beauty 2 °F hardier, except after petal fall");
     Cli.Result metric = Cli.run("profile", "show", "apple", "--crop-profiles", folder);
-    assertThat(metric.out()).containsPattern("full-bloom\\s+65\\s+-2\\.2 °C\\s+-3\\.9 °C\\s+base");
+    assertThat(metric.out()).containsPattern("full-bloom\\s+65\\s+yes\\s+-2\\.2 °C\\s+-3\\.9 °C\\s+base");
     Cli.Result after = Cli.run("profile", "show", "apple", "--units", "us", "--crop-profiles", folder);
-    assertThat(after.out()).containsPattern("silver-tip\\s+51\\s+15\\.0 °F\\s+2\\.0 °F");
+    assertThat(after.out()).containsPattern("silver-tip\\s+51\\s+no\\s+15\\.0 °F\\s+2\\.0 °F");
   }
 
   @Test
@@ -72,7 +73,8 @@ class ProfileCommandTest {
     JsonNode first = j.get("stages").get(0);
     List<String> keys = new ArrayList<>();
     first.fieldNames().forEachRemaining(keys::add);
-    assertThat(keys).contains("id", "name", "bbch", "t10_c", "t90_c", "source");
+    assertThat(keys).contains("id", "name", "bbch", "flowering", "t10_c", "t90_c", "source");
+    assertThat(first.get("flowering").asBoolean(true)).isFalse();
     assertThat(first.get("id").asText()).isEqualTo("silver-tip");
     assertThat(first.get("bbch").asText()).isEqualTo("51");
     // 15 °F − 1 °F = 14 °F = −10.0 °C (WSU EB0913 and its Golden Delicious footnote).
@@ -101,8 +103,27 @@ class ProfileCommandTest {
     Files.writeString(pear, Files.readString(pear).replace("t10: 26F", "t10: 26").replace("t90: 23F", "t90: 28F"));
     Cli.Result bad = Cli.run("profile", "check", "--crop-profiles", folder);
     assertThat(bad.exitCode()).isEqualTo(Main.BAD_INPUT);
-    assertThat(bad.err()).contains("have 2 problems").contains("pear.yaml:51: stage 'full-white' t10:"
-        + " '26' has no unit").contains("pear.yaml:58: stage 'first-bloom': t90 '28F' is not colder");
+    assertThat(bad.err()).contains("have 2 problems").contains("pear.yaml:62: stages[full-white].t10:"
+        + " '26' has no unit").contains("pear.yaml:70: stages[first-bloom].t90: '28F' is not colder");
+  }
+
+  @Test
+  void checkNamesEachStageWithoutAFloweringFlagAndHowItWasRead() throws IOException {
+    Path apple = dir.resolve("apple.yaml");
+    String text = Files.readString(apple);
+    // Full bloom (BBCH 65) and post bloom (BBCH 69) lose their flags: the BBCH fallback reads the
+    // first as flowering, the second (end of flowering, Meier 2001) as not.
+    Files.writeString(apple, text.replace("    bbch: \"65\"\n    flowering: true\n", "    bbch: \"65\"\n")
+        .replace("    bbch: \"69\"\n    flowering: false\n", "    bbch: \"69\"\n"));
+    Cli.Result r = Cli.run("profile", "check", "--crop-profiles", folder);
+    assertThat(r.exitCode()).as(r.toString()).isZero();
+    assertThat(r.out()).contains("2 stages have no flowering flag:")
+        .contains(apple + ":81: stages[full-bloom]: has no flowering flag, so it is read from bbch 65"
+            + " as flowering (60 to 65 flower); write flowering: true")
+        .contains(apple + ":87: stages[post-bloom]: has no flowering flag, so it is read from bbch 69"
+            + " as not flowering");
+    assertThat(Cli.run("profile", "check", "--crop-profiles", Path.of("crop-profiles").toString()).out())
+        .doesNotContain("flowering flag");
   }
 
   @Test

@@ -35,7 +35,7 @@ class InheritanceTest {
     assertThat(gd.stage("silver-tip").orElseThrow().t10C()).isCloseTo((14 - 32) / 1.8, within(EPS));
     assertThat(gd.stage("silver-tip").orElseThrow().t90C()).isCloseTo((1 - 32) / 1.8, within(EPS));
     assertThat(lib.effective("apple", "winesap").stages()).isEqualTo(
-        gd.stages().stream().map(s -> new EffectiveStage(s.id(), s.name(), s.bbch(), s.t10C(),
+        gd.stages().stream().map(s -> new EffectiveStage(s.id(), s.name(), s.bbch(), s.flowering(), s.t10C(),
             s.t90C(), s.source().replace("golden-delicious", "winesap"), s.provenance())).toList());
   }
 

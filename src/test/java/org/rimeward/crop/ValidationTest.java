@@ -66,46 +66,47 @@ class ValidationTest {
   void unknownKey() throws IOException {
     String m = problem(CROP.replace("    t90: 25F\n    source: test table\n  - id: post-bloom",
         "    t90: 25F\n    sorce: x\n    source: test table\n  - id: post-bloom"));
-    assertThat(m).contains("apple.yaml:18: stage 'full-bloom': unknown key 'sorce'")
-        .contains("known keys are id, name, bbch").contains("Fix the spelling or remove it");
+    assertThat(m).contains("apple.yaml:18: stages[full-bloom].sorce: unknown key; allowed here: id,"
+        + " name, bbch, flowering").contains("(check the spelling)");
   }
 
   @Test
   void unknownTopLevelKey() throws IOException {
     assertThat(problem(CROP.replace("name: Apple\n", "name: Apple\nexposure_min: 30\n")))
-        .contains("apple.yaml:4: the crop file: unknown key 'exposure_min'");
+        .contains("apple.yaml:4: exposure_min: unknown key; allowed here: crop, name");
   }
 
   @Test
   void missingUnit() throws IOException {
     String m = problem(CROP.replaceFirst("t10: 28F", "t10: 28"));
-    assertThat(m).contains("apple.yaml:10: stage 'first-pink' t10: '28' has no unit")
-        .contains("-2.2C or 28F");
+    assertThat(m).contains("apple.yaml:10: stages[first-pink].t10: '28' has no unit")
+        .contains("-2.2C or 28F, with the unit the source prints");
   }
 
   @Test
   void unknownUnit() throws IOException {
     assertThat(problem(CROP.replaceFirst("t10: 28F", "t10: 28X")))
-        .contains("apple.yaml:10: stage 'first-pink' t10: unit 'X' in '28X' is not known");
+        .contains("apple.yaml:10: stages[first-pink].t10: unit 'X' in '28X' is not known");
   }
 
   @Test
   void stagesOutOfOrder() throws IOException {
     String m = problem(CROP.replace("bbch: \"65\"", "bbch: \"55\""));
-    assertThat(m).contains("apple.yaml:15: stage 'full-bloom' bbch: '55' is not after the previous"
+    assertThat(m).contains("apple.yaml:15: stages[full-bloom].bbch: '55' is not after the previous"
         + " stage 'first-pink' (bbch 57)").contains("in order of development");
   }
 
   @Test
   void duplicatedStageId() throws IOException {
     String m = problem(CROP.replace("id: post-bloom", "id: full-bloom").replace("bbch: \"69\"", "bbch: \"69\""));
-    assertThat(m).contains("apple.yaml:19: stage 'full-bloom': id 'full-bloom' is used twice");
+    assertThat(m).contains("apple.yaml:19: stages[full-bloom].id: 'full-bloom' is used twice (first"
+        + " on line 13)");
   }
 
   @Test
   void t90NotColderThanT10() throws IOException {
     String m = problem(CROP.replaceFirst("t90: 24F", "t90: 29F"));
-    assertThat(m).contains("apple.yaml:11: stage 'first-pink': t90 '29F' is not colder than t10 '28F'")
+    assertThat(m).contains("apple.yaml:11: stages[first-pink].t90: '29F' is not colder than t10 '28F'")
         .contains("Check both against the source table");
     assertThat(problem(CROP.replaceFirst("t90: 24F", "t90: 28F"))).contains("is not colder than");
   }
@@ -114,18 +115,19 @@ class ValidationTest {
   void temperatureOutOfRange() throws IOException {
     // -28 written where -2.8C was meant: -28F is -33 °C.
     String m = problem(CROP.replaceFirst("t90: 24F", "t90: -28F"));
-    assertThat(m).contains("apple.yaml:11: stage 'first-pink' t90: '-28F' (-33.3 °C) is outside the"
+    assertThat(m).contains("apple.yaml:11: stages[first-pink].t90: '-28F' (-33.3 °C) is outside the"
         + " plausible -30.0 to +5.0 °C").contains("check the number and its unit");
     assertThat(problem(CROP.replaceFirst("t10: 28F", "t10: 42F"))).contains("'42F' (5.6 °C) is outside");
   }
 
   @Test
   void missingValueAndBadBbchAndBadId() throws IOException {
-    assertThat(problem(CROP.replaceFirst("    t90: 24F\n", ""))).contains("apple.yaml:7: stage"
-        + " 'first-pink': 't90' is missing");
-    assertThat(problem(CROP.replace("\"57\"", "57a"))).contains("bbch: '57a' is not a two-digit BBCH code");
+    assertThat(problem(CROP.replaceFirst("    t90: 24F\n", ""))).contains("apple.yaml:7:"
+        + " stages[first-pink]: 't90' is required; add the 90% kill temperature");
+    assertThat(problem(CROP.replace("\"57\"", "57a"))).contains("apple.yaml:9:"
+        + " stages[first-pink].bbch: '57a' is not a two-digit BBCH code");
     assertThat(problem(CROP.replace("id: first-pink", "id: First Pink")))
-        .contains("apple.yaml:7: stages[1] id: 'First Pink' is not a kebab-case id");
+        .contains("apple.yaml:7: stages item 1.id: 'First Pink' is not a kebab-case id");
   }
 
   @Test
@@ -176,23 +178,23 @@ class ValidationTest {
                 t10: -3C
                 note: "x"
         """);
-    assertThat(m).contains("apple.yaml:29: variety 'gala' override of 'ful-bloom': 'ful-bloom' is not"
-        + " a stage of this crop; known stages: first-pink, full-bloom, post-bloom");
+    assertThat(m).contains("apple.yaml:29: varieties[gala].overrides[ful-bloom].stage: 'ful-bloom' is"
+        + " not a stage of this crop; known stages: first-pink, full-bloom, post-bloom");
   }
 
   @Test
   void varietyAndOverrideNeedASourceOrNote() throws IOException {
     assertThat(problem(CROP + "varieties:\n  - id: gala\n    hardiness_offset: 1F\n"))
-        .contains("apple.yaml:26: variety 'gala': needs a 'source'");
+        .contains("apple.yaml:26: varieties[gala]: needs a 'source'");
     assertThat(problem(CROP + "varieties:\n  - id: gala\n    note: n\n    overrides:\n"
         + "      - stage: full-bloom\n        t10: -3C\n"))
-        .contains("apple.yaml:29: variety 'gala' override of 'full-bloom': needs a 'source' or a 'note'");
+        .contains("apple.yaml:29: varieties[gala].overrides[full-bloom]: needs a 'source' or a 'note'");
   }
 
   @Test
   void offsetLargerThanTheLimit() throws IOException {
     String m = problem(CROP + "varieties:\n  - id: gala\n    hardiness_offset: 6F\n    note: n\n");
-    assertThat(m).contains("apple.yaml:27: variety 'gala' hardiness_offset: '6F' is more than 3.0 °C");
+    assertThat(m).contains("apple.yaml:27: varieties[gala].hardiness_offset: '6F' is more than 3.0 °C");
   }
 
   @Test
@@ -215,7 +217,7 @@ class ValidationTest {
   void offsetExceptNamesAKnownStage() throws IOException {
     assertThat(problem(CROP + "varieties:\n  - id: rome\n    hardiness_offset: 2F\n"
         + "    offset_except: [petal-fall]\n    note: n\n"))
-        .contains("apple.yaml:28: variety 'rome' offset_except: 'petal-fall' is not a stage");
+        .contains("apple.yaml:28: varieties[rome].offset_except: 'petal-fall' is not a stage");
   }
 
   @Test
@@ -233,8 +235,8 @@ class ValidationTest {
             source: s
             note: single stage tolerance
         """;
-    assertThat(problem(tol)).contains("apple.yaml:9: stage 'full-bloom': uses a single 'tolerance', so"
-        + " the file needs 'tolerance_t90_margin'");
+    assertThat(problem(tol)).contains("apple.yaml:9: stages[full-bloom].tolerance: uses a single"
+        + " 'tolerance', so the file needs 'tolerance_t90_margin'");
     assertThat(problem(tol.replace("note: single stage tolerance", "note: x")
         .replace("basis: b", "basis: b\ntolerance_t90_margin: 3F")))
         .contains("needs a note saying it is a single stage tolerance");
