@@ -1,9 +1,7 @@
 package org.rimeward.cli;
 
 import java.nio.file.Path;
-import java.time.ZoneOffset;
 import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Map;
 import org.rimeward.farm.Sprinklers;
 import org.rimeward.io.BadInputException;
@@ -13,6 +11,7 @@ import org.rimeward.physics.OutOfRangeException;
 import org.rimeward.physics.SprinklerBalance;
 import org.rimeward.physics.Wind;
 import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.RuleThresholds;
 import org.rimeward.rules.facts.Thresholds;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
@@ -168,13 +167,7 @@ final class CalcRateCommand implements Runnable {
    * judge wind by the same numbers, kept in one place.
    */
   private Thresholds limits() {
-    Path folder = rules != null ? rules : BundledData.folder("rules");
-    List<Thresholds> found = RuleBook.load(folder).run(List.of(), ZoneOffset.UTC).all(Thresholds.class);
-    if (found.size() != 1) {
-      throw new BadInputException(folder + ": the rule files set no wind limits (rule THRESHOLDS in"
-          + " policy/thresholds.drl); restore that rule or pass --rules with a folder that has it");
-    }
-    return found.get(0);
+    return RuleThresholds.of(RuleBook.load(rules != null ? rules : BundledData.folder("rules")));
   }
 
   /** Below freezing: the rule files' wind bands, stated against the 10 m wind. */

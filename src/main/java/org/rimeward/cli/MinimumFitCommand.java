@@ -10,11 +10,15 @@ import java.util.TreeMap;
 import org.rimeward.farm.Farm;
 import org.rimeward.farm.FarmLoader;
 import org.rimeward.io.BadInputException;
+import org.rimeward.io.BundledData;
 import org.rimeward.minimum.NightSample;
 import org.rimeward.minimum.RadiationNights;
 import org.rimeward.minimum.SiteMinimumFile;
 import org.rimeward.minimum.SiteMinimumFit;
 import org.rimeward.minimum.SiteMinimumModel;
+import org.rimeward.plan.RadiationNightCriteria;
+import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.RuleThresholds;
 import org.rimeward.units.UnitSystem;
 import org.rimeward.weather.Reading;
 import org.rimeward.weather.Readings;
@@ -52,6 +56,12 @@ final class MinimumFitCommand implements Runnable {
       description = "Fewest radiation nights to accept (default: ${DEFAULT-VALUE}; at least 5).")
   int minNights;
 
+  @Option(names = "--rules", paramLabel = "DIR",
+      description = "Folder of .drl rule files whose radiation-night criteria (rule THRESHOLDS)"
+          + " pick the nights (default: the farm's own: farm.yaml's rules:, else <farm>/rules if"
+          + " present, else the bundled rules; as the plan reads them).")
+  Path rules;
+
   @Option(names = "--json", description = "Print one JSON object (always metric).")
   boolean json;
 
@@ -74,7 +84,9 @@ final class MinimumFitCommand implements Runnable {
           + "; stations there: " + String.join(", ", stations));
     }
     List<Reading> readings = all.of(id);
-    RadiationNights.Criteria criteria = RadiationNights.Criteria.STANDARD;
+    // The criteria the re-plan judges tonight by: the same rule files, the same numbers.
+    Path ruleDir = rules != null ? rules : f.ownRules().orElseGet(() -> BundledData.bundled("rules"));
+    RadiationNights.Criteria criteria = RadiationNightCriteria.of(RuleThresholds.of(RuleBook.load(ruleDir)));
     List<NightSample> nights = RadiationNights.nights(readings, f.latitude(), f.longitude(), f.zone(),
         criteria);
     String name = history.getFileName().toString();

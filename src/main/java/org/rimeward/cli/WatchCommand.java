@@ -16,6 +16,9 @@ import org.rimeward.io.BadInputException;
 import org.rimeward.plan.PlanRequest;
 import org.rimeward.plan.Replanner;
 import org.rimeward.rules.RuleBook;
+import org.rimeward.units.Dimension;
+import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.watch.AlarmKind;
 import org.rimeward.watch.NightWatch;
 import org.rimeward.watch.WatchPolicy;
@@ -74,16 +77,19 @@ final class WatchCommand implements Callable<Integer> {
   @Option(names = "--station", paramLabel = "ID", description = "The station to plan by.")
   String station;
 
-  @Option(names = "--lead", paramLabel = "INTERVAL", defaultValue = "30m",
-      description = "Raise start-due this long before a start (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--lead", paramLabel = "INTERVAL",
+      description = "Raise start-due this long before a start (default: the rule files' watch"
+          + " lead, rule THRESHOLDS).")
   String lead;
 
-  @Option(names = "--colder-margin", paramLabel = "DT", defaultValue = "1.0C",
-      description = "Raise colder-than-forecast beyond this (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--colder-margin", paramLabel = "DT",
+      description = "Raise colder-than-forecast beyond this, e.g. 1.0C or 2F (default: the rule"
+          + " files' margin, rule THRESHOLDS).")
   String colderMargin;
 
-  @Option(names = "--stale-after", paramLabel = "INTERVAL", defaultValue = "60m",
-      description = "Raise stale after this long without a reading (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--stale-after", paramLabel = "INTERVAL",
+      description = "Raise stale after this long without a reading (default: the rule files',"
+          + " rule THRESHOLDS).")
   String staleAfter;
 
   @Option(names = "--command-timeout", paramLabel = "INTERVAL", defaultValue = "10s",
@@ -106,12 +112,22 @@ final class WatchCommand implements Callable<Integer> {
     if (interval.compareTo(Duration.ofSeconds(5)) < 0) {
       throw new BadInputException("--every: " + every + " is too short; give 5s or more");
     }
-    WatchPolicy policy = new WatchPolicy(duration(lead, "--lead"),
-        org.rimeward.units.Quantities.parse(colderMargin, org.rimeward.units.Dimension.TEMPERATURE_DELTA,
-            "--colder-margin"), WatchPolicy.STANDARD.alarmMarginC(), duration(staleAfter, "--stale-after"),
-        WatchPolicy.STANDARD.windLimitMs(), duration(commandTimeout, "--command-timeout"));
+    // Options are read before the farm and rules, so a mistyped one fails at once.
+    Duration leadGiven = lead == null ? null : duration(lead, "--lead");
+    Double colderGiven = colderMargin == null ? null : Quantities.parse(colderMargin,
+        Dimension.TEMPERATURE_DELTA, "--colder-margin");
+    if (colderGiven != null && !(colderGiven > 0)) {
+      throw new BadInputException("--colder-margin: '" + colderMargin + "' is not above zero;"
+          + " give a margin such as 1.0C");
+    }
+    Duration staleGiven = staleAfter == null ? null : duration(staleAfter, "--stale-after");
+    Duration timeout = duration(commandTimeout, "--command-timeout");
     Replanner rp = Replanner.load(new PlanRequest(farm, forecast, folders.cropProfiles,
         folders.rules, null), RuleBook::load);
+    WatchPolicy rules = WatchPolicy.from(rp.thresholds(), timeout);
+    WatchPolicy policy = new WatchPolicy(leadGiven != null ? leadGiven : rules.lead(),
+        colderGiven != null ? colderGiven : rules.colderMarginC(),
+        staleGiven != null ? staleGiven : rules.staleAfter(), rules.windyWind10mMs(), timeout);
     Path file = readings != null ? readings : rp.farm().folder().resolve("readings.csv");
     Clock clock = RimewardCommand.clock(spec);
     Instant start = null;
@@ -122,6 +138,7 @@ final class WatchCommand implements Callable<Integer> {
     var out = spec.commandLine().getOut();
     var err = spec.commandLine().getErr();
     NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
+        UnitFormat.of(UnitsOption.of(spec)),
         noAudit ? Optional.empty() : Optional.of(audit != null ? audit : AuditStore.fileFor(farm)),
         Optional.ofNullable(onAlarm), out, err);
     if (once) {

@@ -42,19 +42,20 @@ import org.rimeward.weather.Reading;
  */
 public final class RadiationNights {
   /**
-   * The selection criteria.
+   * The selection criteria. Their values are set, each with its source, in the rule files (rule
+   * THRESHOLDS in {@code policy/thresholds.drl}); the layers that read the rule book pass them in.
    *
-   * @param maxWindMs FAO 2005's 2 m/s for radiation frost (SEEN-2nd, third-party summary of the
-   *     book's on-farm method)
-   * @param maxCloudPct 25 % (2 oktas): "no clouds" read as a nearly clear sky; a Rimeward choice
-   * @param minEarlyCoolingC 2 °C from sunset to sunset + 2 h; a Rimeward choice (common practice)
-   *     below the ≈10 °C first-hours fall FAO 2005 ch. 1 describes for clear calm nights
-   * @param minDepressionC 1 °C; a Rimeward choice
+   * @param maxWindMs the most mean wind over the night, as the history records it
+   * @param maxCloudPct the most mean cloud over the night, where the history records cloud
+   * @param minEarlyCoolingC where it does not, the least fall of the air from sunset to sunset + 2 h
+   * @param minDepressionC where it does not, the least dew-point depression at sunset + 2 h
    * @param maxGap longest gap between readings across the night
    */
   public record Criteria(double maxWindMs, double maxCloudPct, double minEarlyCoolingC,
       double minDepressionC, Duration maxGap) {
-    public static final Criteria STANDARD = new Criteria(2.0, 25.0, 2.0, 1.0, Duration.ofMinutes(90));
+    public Criteria {
+      java.util.Objects.requireNonNull(maxGap, "maxGap");
+    }
 
     public String describe() {
       return String.format(Locale.ROOT, "mean wind ≤ %.1f m/s where recorded; mean cloud ≤ %.0f %%"

@@ -16,6 +16,8 @@ import org.rimeward.io.Loaded;
 import org.rimeward.physics.Night;
 import org.rimeward.physics.SunCalculator;
 import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.RuleThresholds;
+import org.rimeward.rules.facts.Thresholds;
 import org.rimeward.weather.Forecast;
 import org.rimeward.weather.ForecastCorrection;
 import org.rimeward.weather.ForecastReader;
@@ -38,7 +40,7 @@ public final class Replanner {
   private final Instant sunrise;
   private final NightPlanner planner;
   private final SiteMinimumStep siteMinimum;
-  private Forecast lastForecast;
+  private final Thresholds thresholds;
 
   private Replanner(Farm farm, Forecast forecast, CropLibrary crops, RuleBook book,
       PlanInputs inputs, LocalDate night, NightPlanner planner) {
@@ -54,7 +56,8 @@ public final class Replanner {
         farm.origin() + ": the sun does not set on " + night + "; Rimeward plans nights with a sunset"));
     this.sunrise = sun.sunrise().map(ZonedDateTime::toInstant).orElseThrow(() -> new BadInputException(
         farm.origin() + ": the sun does not rise after " + night + "; Rimeward plans nights with a sunrise"));
-    this.siteMinimum = SiteMinimumStep.forFarm(farm);
+    this.thresholds = RuleThresholds.of(book);
+    this.siteMinimum = SiteMinimumStep.forFarm(farm, RadiationNightCriteria.of(thresholds));
   }
 
   /** Reads everything but the readings. */
@@ -67,6 +70,14 @@ public final class Replanner {
 
   public Farm farm() {
     return farm;
+  }
+
+  /**
+   * The thresholds the rule files set (rule THRESHOLDS), for what judges the night beside the
+   * plan: the watch's alarms, the site model's radiation-night criteria.
+   */
+  public Thresholds thresholds() {
+    return thresholds;
   }
 
   public LocalDate night() {
@@ -99,7 +110,6 @@ public final class Replanner {
     if (site.isPresent() && site.get().usedSite()) {
       planned = siteMinimum.curve(planned, site.get(), sunset, sunrise, now);
     }
-    lastForecast = planned;
     List<PlanInputs.Input> files = new ArrayList<>(inputs.files());
     files.add(new PlanInputs.Input(PlanInputs.Kind.READINGS,
         readings.file().getFileName().toString(), readingsBytes));
@@ -111,11 +121,6 @@ public final class Replanner {
         ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT, readings.readings().size(),
         readings.skipped().stream().map(Readings.Skipped::message).toList(), stale, site);
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
-  }
-
-  /** The corrected forecast the latest {@link #replan} planned by (the forecast before any). */
-  public Forecast lastForecast() {
-    return lastForecast != null ? lastForecast : forecast;
   }
 
   /** The station whose readings run coldest against the forecast over the last hour. */

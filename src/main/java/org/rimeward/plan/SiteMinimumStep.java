@@ -36,16 +36,20 @@ final class SiteMinimumStep {
 
   private final Optional<SiteMinimumModel> model;
   private final Use use;
+  private final RadiationNights.Criteria criteria;
 
-  private SiteMinimumStep(Optional<SiteMinimumModel> model, Use use) {
+  private SiteMinimumStep(Optional<SiteMinimumModel> model, Use use,
+      RadiationNights.Criteria criteria) {
     this.model = model;
     this.use = use;
+    this.criteria = criteria;
   }
 
-  static SiteMinimumStep forFarm(Farm farm) {
+  /** The farm's model, if it has one, judging tonight by the rule files' {@code criteria}. */
+  static SiteMinimumStep forFarm(Farm farm, RadiationNights.Criteria criteria) {
     Path file = SiteMinimumFile.in(farm.folder());
     if (!Files.isRegularFile(file)) {
-      return new SiteMinimumStep(Optional.empty(), Use.COLDER);
+      return new SiteMinimumStep(Optional.empty(), Use.COLDER, criteria);
     }
     Use use = Use.COLDER;
     try {
@@ -61,7 +65,7 @@ final class SiteMinimumStep {
     } catch (IOException e) {
       throw new BadInputException(file + ": not readable (" + e.getMessage() + ")", e);
     }
-    return new SiteMinimumStep(Optional.of(SiteMinimumFile.read(file)), use);
+    return new SiteMinimumStep(Optional.of(SiteMinimumFile.read(file)), use, criteria);
   }
 
   Optional<NightUpdate.SiteMinimum> apply(List<Reading> readings, java.time.LocalDate night,
@@ -69,8 +73,7 @@ final class SiteMinimumStep {
     if (model.isEmpty() || !now.isBefore(sunrise)) {
       return Optional.empty();
     }
-    Optional<NightSample> tonight = RadiationNights.tonight(readings, night, sunset, now,
-        RadiationNights.Criteria.STANDARD);
+    Optional<NightSample> tonight = RadiationNights.tonight(readings, night, sunset, now, criteria);
     if (tonight.isEmpty()) {
       return Optional.empty();
     }

@@ -40,10 +40,12 @@ public final class RuleBook {
    * The ruleflow groups, in the order they run: derived facts first, cautions last. Each phase
    * reads only what earlier phases concluded, so no rule needs a salience: thresholds, targets
    * and risk; covers; sprinkling thresholds; start; stop; the run's need and wind; whether
-   * sprinkling is advised; the plan and alarms; water; status; cautions.
+   * sprinkling is advised; the plan and alarms; water in four steps (the sharing terms, each
+   * source's balance, a short source, each block's share); status; cautions.
    */
   public static final List<String> PHASES = List.of("infer", "covers", "thresholds", "start",
-      "stop", "run", "advice", "sprinkle", "water", "status", "cautions");
+      "stop", "run", "advice", "sprinkle", "water-terms", "water-budget", "water-short",
+      "water-grant", "status", "cautions");
 
   private final Path folder;
   private final List<RuleFile> files;
@@ -159,6 +161,9 @@ public final class RuleBook {
 
   /** Compiles rule files given as text, for tests and for replaying recorded rules. */
   public static RuleBook compile(Path folder, List<RuleFile> files) {
+    for (RuleFile f : files) {
+      checkGroups(folder, f);
+    }
     KieServices ks = KieServices.Factory.get();
     KieFileSystem kfs = ks.newKieFileSystem();
     String hash = hashOf(files);
@@ -180,6 +185,25 @@ public final class RuleBook {
     }
     KieContainer container = ks.newKieContainer(release);
     return new RuleBook(folder, List.copyOf(files), hash, container.getKieBase(), Origin.COMPILED);
+  }
+
+  private static final Pattern GROUP =
+      Pattern.compile("(?m)^\\s*(ruleflow-group|agenda-group)\\s+\"([^\"]*)\"");
+
+  /**
+   * A rule in a group the run never focuses would never fire, and nothing would say so: a farm's
+   * own copy of older rule files (a group since renamed) would quietly decide less. Refused here.
+   */
+  private static void checkGroups(Path folder, RuleFile f) {
+    Matcher m = GROUP.matcher(f.text());
+    while (m.find()) {
+      if (!m.group(1).equals("ruleflow-group") || !PHASES.contains(m.group(2))) {
+        int line = (int) f.text().substring(0, m.start(2)).chars().filter(c -> c == '\n').count() + 1;
+        throw new BadInputException(folder.resolve(f.name()) + ":" + line + ": " + m.group(1) + " \""
+            + m.group(2) + "\" is not a phase Rimeward runs, so its rules would never fire; use"
+            + " ruleflow-group with one of " + String.join(", ", PHASES));
+      }
+    }
   }
 
   private static List<RuleFile> readFiles(Path folder) {

@@ -12,21 +12,24 @@ import org.rimeward.farm.Block;
 import org.rimeward.farm.Farm;
 import org.rimeward.physics.Wind;
 import org.rimeward.plan.Action;
+import org.rimeward.plan.AlarmReading;
 import org.rimeward.plan.BlockPlan;
 import org.rimeward.plan.NightUpdate;
 import org.rimeward.plan.Plan;
-import org.rimeward.weather.Forecast;
-import org.rimeward.weather.ForecastCorrection;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.weather.Reading;
 
-/** Which alarms hold at {@code now}, given the re-plan and the latest reading. */
+/**
+ * Which alarms hold at {@code now}, given the re-plan and the latest reading. Numbers in messages
+ * are in the user's units; thresholds are the {@link WatchPolicy}'s and the plan's own.
+ */
 public final class AlarmCheck {
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
 
   private AlarmCheck() {}
 
-  public static List<Alarm> check(Plan plan, Farm farm, Forecast corrected, Optional<Reading> latest,
-      Instant now, WatchPolicy p) {
+  public static List<Alarm> check(Plan plan, Farm farm, Optional<Reading> latest, Instant now,
+      WatchPolicy p, UnitFormat fmt) {
     ZoneId zone = farm.zone();
     List<Alarm> out = new ArrayList<>();
     NightUpdate.ReadingsSummary r = plan.update().readings();
@@ -39,11 +42,14 @@ public final class AlarmCheck {
     if (!Double.isNaN(r.biasC()) && -r.biasC() > p.colderMarginC()) {
       int level = (int) Math.floor(-r.biasC() / p.colderMarginC());
       out.add(new Alarm(Alarm.FARM_WIDE, AlarmKind.COLDER_THAN_FORECAST, level, now,
-          String.format(Locale.ROOT, "readings %.1f °C colder than forecast over the last hour", -r.biasC())));
+          "readings " + fmt.tempDelta(-r.biasC()) + " colder than forecast over the last hour"));
     }
+    // The wind rules judge the wind at 10 m, as extension limits are stated; the station's wind is
+    // brought there from its own height through the 2 m wind (FAO-56 Eq. 47), as the plan does.
     double wind2m = latest.flatMap(x -> x.windMs().isPresent()
         ? Optional.of(Wind.at2mMs(x.windMs().getAsDouble(), x.windHeightM())) : Optional.empty())
         .orElse(Double.NaN);
+    double wind10m = wind2m / Wind.at2mMs(1.0, 10.0);
     for (BlockPlan b : plan.blocks()) {
       Block block = farm.blocks().stream().filter(x -> x.id().equals(b.blockId())).findFirst().orElseThrow();
       Optional<Action.Sprinkle> s = b.sprinkle().filter(Action.Sprinkle::withWater);
@@ -55,19 +61,23 @@ public final class AlarmCheck {
             out.add(new Alarm(b.blockId(), AlarmKind.START_DUE, 1, now, "start sprinkling at "
                 + clock(start, zone) + " (in " + Duration.between(now, start).toMinutes() + " min)"));
           }
-          if (latest.isPresent() && !start.isAfter(corrected.end()) && !start.isBefore(corrected.start())) {
-            double startAir = ForecastCorrection.forecastAirC(corrected, start) + block.coldAirOffsetC();
+          // The plan's own alarm temperature for the block (rule ALARM-START), so that the watch
+          // rings at the number the plan told the manager to set the alarm at.
+          Optional<AlarmReading> alarm = b.alarm();
+          if (latest.isPresent() && alarm.isPresent()) {
             double airNow = latest.get().airTempC() + block.coldAirOffsetC();
-            if (airNow <= startAir + p.alarmMarginC()) {
-              out.add(new Alarm(b.blockId(), AlarmKind.ALARM_TEMPERATURE, 1, now, String.format(
-                  Locale.ROOT, "air %.1f °C at the block, within %.1f °C of the %.1f °C planned for the"
-                      + " start at %s", airNow, p.alarmMarginC(), startAir, clock(start, zone))));
+            if (airNow <= alarm.get().alarmAirC()) {
+              out.add(new Alarm(b.blockId(), AlarmKind.ALARM_TEMPERATURE, 1, now, "air "
+                  + fmt.temp(airNow) + " at the block, at or below the alarm temperature the plan"
+                  + " sets, " + fmt.temp(alarm.get().alarmAirC()) + "; sprinkling starts when the air"
+                  + " falls to " + fmt.temp(alarm.get().startAirC()) + ", planned at "
+                  + clock(start, zone)));
             }
           }
         } else if (now.isBefore(stop)) {
           out.add(new Alarm(b.blockId(), AlarmKind.START_DUE, 2, now, "start overdue since "
               + clock(start, zone) + ": sprinkling should be running"));
-          windAlarm(out, b, wind2m, p, now, "while sprinkling");
+          windAlarm(out, b, wind10m, wind2m, p, now, "while sprinkling", fmt);
         } else {
           out.add(new Alarm(b.blockId(), AlarmKind.STOP_ALLOWED, 1, now, "the stop condition is met"
               + " (from " + clock(stop, zone) + "): sprinklers may stop once the ice is loose and"
@@ -76,17 +86,18 @@ public final class AlarmCheck {
       }
       Optional<Action.Cover> c = b.cover();
       if (c.isPresent() && !now.isBefore(c.get().deployStart()) && now.isBefore(c.get().remove())) {
-        windAlarm(out, b, wind2m, p, now, "with covers on");
+        windAlarm(out, b, wind10m, wind2m, p, now, "with covers on", fmt);
       }
     }
     return out;
   }
 
-  private static void windAlarm(List<Alarm> out, BlockPlan b, double wind2m, WatchPolicy p,
-      Instant now, String when) {
-    if (!Double.isNaN(wind2m) && wind2m > p.windLimitMs()) {
-      out.add(new Alarm(b.blockId(), AlarmKind.WIND, 1, now, String.format(Locale.ROOT,
-          "wind %.1f m/s at 2 m, above %.1f m/s %s", wind2m, p.windLimitMs(), when)));
+  private static void windAlarm(List<Alarm> out, BlockPlan b, double wind10m, double wind2m,
+      WatchPolicy p, Instant now, String when, UnitFormat fmt) {
+    if (!Double.isNaN(wind10m) && wind10m > p.windyWind10mMs()) {
+      out.add(new Alarm(b.blockId(), AlarmKind.WIND, 1, now, "wind " + fmt.speed(wind10m)
+          + " at 10 m (" + fmt.speed(wind2m) + " at 2 m), above the windy limit of "
+          + fmt.speed(p.windyWind10mMs()) + " " + when));
     }
   }
 

@@ -28,6 +28,7 @@ import org.rimeward.plan.BlockPlan;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanChanges;
 import org.rimeward.plan.Replanner;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.weather.Reading;
 import org.rimeward.weather.Readings;
 import org.rimeward.weather.ReadingsReader;
@@ -46,6 +47,7 @@ public final class NightWatch {
   private final ReadingsReader tail;
   private final Optional<String> station;
   private final WatchPolicy policy;
+  private final UnitFormat units;
   private final Optional<Path> auditDb;
   private final Optional<GrowerCommand> command;
   private final PrintWriter out;
@@ -61,13 +63,14 @@ public final class NightWatch {
   private final CountDownLatch wake = new CountDownLatch(1);
 
   public NightWatch(Replanner replanner, Path readingsFile, Optional<String> station,
-      WatchPolicy policy, Optional<Path> auditDb, Optional<String> onAlarm, PrintWriter out,
-      PrintWriter err) {
+      WatchPolicy policy, UnitFormat units, Optional<Path> auditDb, Optional<String> onAlarm,
+      PrintWriter out, PrintWriter err) {
     this.replanner = replanner;
     this.readingsFile = readingsFile;
     this.tail = new ReadingsReader(readingsFile, replanner.farm().zone());
     this.station = station;
     this.policy = policy;
+    this.units = units;
     this.auditDb = auditDb;
     this.command = onAlarm.map(c -> new GrowerCommand(c, policy.commandTimeout()));
     this.out = out;
@@ -123,8 +126,7 @@ public final class NightWatch {
       List<Alarm> fresh = new ArrayList<>();
       Optional<Reading> latest = all.of(plan.update().readings().station()).stream()
           .filter(x -> !x.time().isAfter(now)).reduce((a, b) -> b);
-      for (Alarm a : AlarmCheck.check(plan, replanner.farm(), replanner.lastForecast(), latest, now,
-          policy)) {
+      for (Alarm a : AlarmCheck.check(plan, replanner.farm(), latest, now, policy, units)) {
         if (a.kind() == AlarmKind.START_DUE && a.level() > 1 && running.contains(a.blockId())) {
           continue;
         }

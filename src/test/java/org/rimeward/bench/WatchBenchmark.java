@@ -20,6 +20,8 @@ import org.rimeward.plan.PlanRequest;
 import org.rimeward.plan.Replanner;
 import org.rimeward.rules.RuleBook;
 import org.rimeward.watch.NightWatch;
+import org.rimeward.units.UnitFormat;
+import org.rimeward.units.UnitSystem;
 import org.rimeward.watch.WatchPolicy;
 import org.rimeward.weather.Forecast;
 import org.rimeward.weather.ForecastCorrection;
@@ -61,7 +63,8 @@ public final class WatchBenchmark {
     Replanner rp = Replanner.load(new PlanRequest(farm, null, Path.of("crop-profiles"),
         Path.of("rules"), null), RuleBook::load);
     StringWriter sink = new StringWriter();
-    NightWatch watch = new NightWatch(rp, readings, Optional.empty(), WatchPolicy.STANDARD,
+    NightWatch watch = new NightWatch(rp, readings, Optional.empty(),
+        WatchPolicy.from(rp.thresholds(), Duration.ofSeconds(10)), UnitFormat.of(UnitSystem.METRIC),
         Optional.of(farm.resolve("audit.db")), Optional.empty(), new PrintWriter(sink),
         new PrintWriter(sink));
     List<Double> ms = new ArrayList<>();

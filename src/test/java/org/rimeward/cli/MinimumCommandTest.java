@@ -62,6 +62,28 @@ class MinimumCommandTest {
   }
 
   @Test
+  void theRadiationNightCriteriaAreTheRuleFilesTheFarmPlansBy() throws Exception {
+    // The farm's own rules folder, as the plan would read it, with "no clouds" widened to 100 %
+    // cloud: the five overcast nights (90 % cloud) now count. The bundled rules (25 %, a Rimeward
+    // choice) leave them out, as fitWritesTheModelWithTheHistorysHashAndPredictUsesIt shows.
+    Path farm = farmWithHistory(20, 5);
+    org.rimeward.rules.RuleFolders.withThresholds(farm.resolve("rules"), """
+        new Thresholds(1.5, 2.2, 4.5, 30.0, 0.0, 1.0, 0.5, 70.0, 0.5,
+              30, 1.0, 60,
+              2.0, 100.0, 2.0, 1.0, 90)""");
+    Cli.Result own = Cli.run("minimum", "fit", "--farm", farm.toString(), "--history",
+        farm.resolve("history.csv").toString(), "--json");
+    assertThat(own.exitCode()).as(own.toString()).isZero();
+    JsonNode f = JSON.readTree(own.out());
+    assertThat(f.get("nights").asInt()).isEqualTo(25);
+    assertThat(f.get("criteria").asText()).contains("mean cloud ≤ 100 %");
+    Cli.Result bundled = Cli.run("minimum", "fit", "--farm", farm.toString(), "--history",
+        farm.resolve("history.csv").toString(), "--rules", "rules", "--json");
+    assertThat(bundled.exitCode()).as(bundled.toString()).isZero();
+    assertThat(JSON.readTree(bundled.out()).get("nights").asInt()).isEqualTo(20);
+  }
+
+  @Test
   void tooFewNightsIsExitTwoWithTheReasonAndNothingWritten() throws Exception {
     Path farm = farmWithHistory(4, 8);
     Cli.Result fit = Cli.run("minimum", "fit", "--farm", farm.toString(), "--history",

@@ -172,6 +172,27 @@ class WatchCommandTest {
   }
 
   @Test
+  void theLeadAndTheStaleLimitAreTheRuleFilesAndTheOptionsOverrideThem() throws Exception {
+    // The bundled rules raise start-due 30 min ahead: hollow-cherry's start (22:42) is due at
+    // 22:20 (anAlarmEscalatesOnceWhenTheStartBecomesOverdue). A copy of the rules with a 10 min
+    // lead and a 180 min stale limit keeps quiet then, and --lead 30m brings the alarm back.
+    readings("2026-04-14T18:00-07:00", "2026-04-14T20:00-07:00", 0.0);
+    Path rules = org.rimeward.rules.RuleFolders.withThresholds(tmp.resolve("rules"), """
+        new Thresholds(1.5, 2.2, 4.5, 30.0, 0.0, 1.0, 0.5, 70.0, 0.5,
+              10, 1.0, 180,
+              2.0, 25.0, 2.0, 1.0, 90)""");
+    Cli.Result bundled = once("2026-04-14T22:20-07:00", "--no-audit");
+    assertThat(bundled.out()).containsPattern("hollow-cherry +start-due").contains("stale");
+    Cli.Result own = once("2026-04-14T22:20-07:00", "--no-audit", "--rules", rules.toString());
+    assertThat(own.out()).as(own.toString()).doesNotContainPattern("hollow-cherry +start-due")
+        .doesNotContain("stale");
+    Cli.Result given = once("2026-04-14T22:20-07:00", "--no-audit", "--rules", rules.toString(),
+        "--lead", "30m", "--stale-after", "60m");
+    assertThat(given.out()).as(given.toString()).containsPattern("hollow-cherry +start-due")
+        .contains("stale");
+  }
+
+  @Test
   void badIntervalsAreExitTwo() {
     Cli.Result r = Cli.run("watch", "--farm", farm.toString(), "--every", "soon", "--once");
     assertThat(r.exitCode()).isEqualTo(Main.BAD_INPUT);

@@ -16,6 +16,9 @@ import org.apache.commons.math3.stat.regression.SimpleRegression;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.rimeward.io.BadInputException;
+import org.rimeward.plan.RadiationNightCriteria;
+import org.rimeward.rules.RuleBook;
+import org.rimeward.rules.RuleThresholds;
 import org.rimeward.weather.Readings;
 import org.rimeward.weather.ReadingsReader;
 
@@ -100,6 +103,13 @@ class SiteMinimumFitTest {
         "", "test", r.rangeT0C(), r.rangeTd0C());
   }
 
+  /**
+   * The criteria the bundled rule files set (rule THRESHOLDS: FAO 2005's 2 m/s for radiation
+   * frost, Rimeward's stated choices for the rest), as {@code minimum fit} and the re-plan use them.
+   */
+  private static final RadiationNights.Criteria RULES = RadiationNightCriteria.of(
+      RuleThresholds.of(RuleBook.load(Path.of("rules"))));
+
   private static final double A = 0.7;
   private static final double B = 0.3;
   private static final double C = -4.5;
@@ -131,7 +141,7 @@ class SiteMinimumFitTest {
       w.night(d0.plusDays(2L * i), kindOf(i));
       radiation += kindOf(i) == HistoryWriter.Kind.RADIATION ? 1 : 0;
     }
-    List<NightSample> all = nights(history(w), RadiationNights.Criteria.STANDARD);
+    List<NightSample> all = nights(history(w), RULES);
     SiteMinimumFit.Result r = SiteMinimumFit.fit(all, 10, "history");
     assertThat(r.nights()).isEqualTo(radiation);
     assertThat(all.stream().filter(s -> s.excluded().orElse("").startsWith("cloudy"))).hasSize(15);
@@ -156,7 +166,7 @@ class SiteMinimumFitTest {
     for (int i = 0; i < 80; i++) {
       w.night(d0.plusDays(i), HistoryWriter.Kind.RADIATION);
     }
-    SiteMinimumFit.Result r = SiteMinimumFit.fit(nights(history(w), RadiationNights.Criteria.STANDARD),
+    SiteMinimumFit.Result r = SiteMinimumFit.fit(nights(history(w), RULES),
         10, "history");
     assertThat(r.nights()).isEqualTo(80);
     assertThat(r.residualSdC()).isCloseTo(0.4, within(0.1));
@@ -196,7 +206,7 @@ class SiteMinimumFitTest {
     for (LocalDate d = LocalDate.of(2026, 10, 25); d.isBefore(LocalDate.of(2026, 11, 8)); d = d.plusDays(1)) {
       made.add(w.night(d, HistoryWriter.Kind.RADIATION));
     }
-    List<NightSample> all = nights(history(w), RadiationNights.Criteria.STANDARD);
+    List<NightSample> all = nights(history(w), RULES);
     for (LocalDate dst : List.of(LocalDate.of(2026, 3, 7), LocalDate.of(2026, 10, 31))) {
       NightSample s = all.stream().filter(n -> n.date().equals(dst)).findFirst().orElseThrow();
       HistoryWriter.Made m = made.stream().filter(n -> n.date().equals(dst)).findFirst().orElseThrow();
@@ -217,7 +227,7 @@ class SiteMinimumFitTest {
     for (int i = 0; i < 16; i++) {
       w.night(d0.plusDays(i), i < 6 ? HistoryWriter.Kind.RADIATION : HistoryWriter.Kind.CLOUDY);
     }
-    List<NightSample> all = nights(history(w), RadiationNights.Criteria.STANDARD);
+    List<NightSample> all = nights(history(w), RULES);
     assertThatThrownBy(() -> SiteMinimumFit.fit(all, 10, "history.csv"))
         .isInstanceOf(BadInputException.class)
         .hasMessageContaining("history.csv: only 6 radiation night(s) qualify out of 16")

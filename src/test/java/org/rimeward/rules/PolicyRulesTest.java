@@ -16,7 +16,12 @@ import org.rimeward.units.UnitSystem;
  * breezy above 2.2 m/s and windy above 4.5 m/s at 10 m (5 and 10 mph: NC State Extension, Poling
  * 2014; Virginia Tech 2017), clear morning below 30 % cloud (common practice), start margin 0 °C
  * (FAO 2005 Table 7.5), alarm 1.0 °C above the start (FAO 2005 ch. 7), cover margin 0.5 °C,
- * overcast 70 %, half the cover credited in wind or cloud (common practice).
+ * overcast 70 %, half the cover credited in wind or cloud (common practice); the night watch's
+ * start-due lead 30 min, colder-than-forecast margin 1.0 °C and stale after 60 min (Rimeward's
+ * choices); radiation nights with mean wind at most 2.0 m/s (FAO 2005 ch. 6, "wind less than
+ * 2 m/s, no clouds", SEEN-2nd: docs/reference/site-minimum.md), cloud at most 25 %, early cooling
+ * at least 2.0 °C, dew-point depression at least 1.0 °C and no gap over 90 min (Rimeward's
+ * choices, stated in the same file).
  */
 class PolicyRulesTest {
   static BundledRules.Run frost(Scenario s) {
@@ -28,10 +33,12 @@ class PolicyRulesTest {
     BundledRules.Run r = frost(new Scenario());
     BundledRules.assertFired(r).firesOnce("THRESHOLDS");
     assertThat(r.all(Thresholds.class)).containsExactly(
-        new Thresholds(1.5, 2.2, 4.5, 30.0, 0.0, 1.0, 0.5, 70.0, 0.5));
+        new Thresholds(1.5, 2.2, 4.5, 30.0, 0.0, 1.0, 0.5, 70.0, 0.5, 30, 1.0, 60,
+            2.0, 25.0, 2.0, 1.0, 90));
     assertThat(r.firing("THRESHOLDS").explanation()).contains("1.5 °C", "2.2 m/s", "4.5 m/s",
         "30 %", "0.0 °C", "1.0 °C", "0.5 °C", "70 %", "FAO 2005", "Poling 2014", "Virginia Tech",
-        "common practice");
+        "common practice", "start-due 30 min ahead", "stale after 60 min", "at most 2.0 m/s",
+        "at most 25 %", "no gap over 90 min", "Rimeward's choices");
   }
 
   @Test
@@ -44,7 +51,8 @@ class PolicyRulesTest {
 
   @Test
   void thresholdsGivenByATestAreNotSetAgain() {
-    Thresholds own = new Thresholds(2.0, 2.0, 5.0, 20.0, 0.5, 1.5, 0.3, 80.0, 0.6);
+    Thresholds own = new Thresholds(2.0, 2.0, 5.0, 20.0, 0.5, 1.5, 0.3, 80.0, 0.6, 20, 1.5, 45,
+        3.0, 30.0, 1.5, 0.5, 60);
     BundledRules.Run r = frost(new Scenario().fact(own));
     BundledRules.assertFired(r).doesNotFire("THRESHOLDS");
     assertThat(r.all(Thresholds.class)).containsExactly(own);

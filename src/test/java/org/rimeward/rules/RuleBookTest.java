@@ -59,4 +59,26 @@ public class RuleBookTest {
         .hasMessageContaining("probe.drl:")
         .hasMessageContaining("does not compile");
   }
+
+  @Test
+  void aRuleInAGroupTheRunNeverFocusesIsRefusedWithFileAndLine() {
+    // "water" was one group ordered by salience before it became four; a farm's older copy of the
+    // water rules would otherwise load and quietly never share water.
+    String rule = """
+        package t;
+        rule "OLD-GROUP"
+          @kind("decision")
+          @explain("never runs")
+          ruleflow-group "%s"
+        when
+        then
+        end
+        """;
+    assertThatThrownBy(() -> book(rule.formatted("water")))
+        .isInstanceOf(BadInputException.class)
+        .hasMessageContaining("probe.drl:5: ruleflow-group \"water\" is not a phase")
+        .hasMessageContaining("water-terms, water-budget, water-short, water-grant");
+    assertThat(book(rule.formatted("water-grant")).run(List.of(), ZoneOffset.UTC).trail())
+        .singleElement().satisfies(f -> assertThat(f.ruleId()).isEqualTo("OLD-GROUP"));
+  }
 }

@@ -78,6 +78,24 @@ class RuleCatalogTest {
     });
   }
 
+  /**
+   * House style: rules are ordered by ruleflow groups, never by salience (a salience hides the
+   * order inside a group, where a reader of one rule cannot see it). Every .drl file below rules/,
+   * comments aside.
+   */
+  @Test
+  void noRuleFileOrdersBySalience() throws IOException {
+    List<Path> files;
+    try (Stream<Path> walk = Files.walk(Path.of("rules"))) {
+      files = walk.filter(f -> f.toString().endsWith(".drl")).sorted().toList();
+    }
+    assertThat(files).as("rule files").hasSizeGreaterThan(10);
+    for (Path p : files) {
+      String code = Files.readString(p, StandardCharsets.UTF_8).replaceAll("//[^\n]*", "");
+      assertThat(code).as("%s", p).doesNotContainPattern("(?i)\\bsalience\\b");
+    }
+  }
+
   @Test
   void cautionsRunInTheCautionsPhaseAndOnlyThere() {
     for (RuleBook.RuleInfo r : BundledRules.book().rules()) {
