@@ -44,8 +44,11 @@ public final class RuleBook {
    * source's balance, a short source, each block's share); status; cautions.
    */
   public static final List<String> PHASES = List.of("infer", "covers", "thresholds", "start",
-      "stop", "run", "advice", "sprinkle", "water-terms", "water-budget", "water-short",
+      "stop", "run", "advice", "sprinkle", "water", "water-terms", "water-budget", "water-short",
       "water-grant", "status", "cautions");
+  // "water" is the one group the water rules shared, ordered by salience, before they had a
+  // group per step. No bundled rule uses it now; it stays a phase so that a trail recorded with
+  // those rules replays as it ran, and a farm's own copy of them still shares its water.
 
   private final Path folder;
   private final List<RuleFile> files;

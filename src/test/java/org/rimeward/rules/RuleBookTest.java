@@ -62,8 +62,8 @@ public class RuleBookTest {
 
   @Test
   void aRuleInAGroupTheRunNeverFocusesIsRefusedWithFileAndLine() {
-    // "water" was one group ordered by salience before it became four; a farm's older copy of the
-    // water rules would otherwise load and quietly never share water.
+    // A group the run never focuses would load and quietly never fire: a typo in a farm's own
+    // rule file would share no water, with nothing said.
     String rule = """
         package t;
         rule "OLD-GROUP"
@@ -74,11 +74,15 @@ public class RuleBookTest {
         then
         end
         """;
-    assertThatThrownBy(() -> book(rule.formatted("water")))
+    assertThatThrownBy(() -> book(rule.formatted("water-grants")))
         .isInstanceOf(BadInputException.class)
-        .hasMessageContaining("probe.drl:5: ruleflow-group \"water\" is not a phase")
+        .hasMessageContaining("probe.drl:5: ruleflow-group \"water-grants\" is not a phase")
         .hasMessageContaining("water-terms, water-budget, water-short, water-grant");
     assertThat(book(rule.formatted("water-grant")).run(List.of(), ZoneOffset.UTC).trail())
+        .singleElement().satisfies(f -> assertThat(f.ruleId()).isEqualTo("OLD-GROUP"));
+    // The single group the water rules shared before they had one per step still runs, so a trail
+    // recorded with them replays as it ran.
+    assertThat(book(rule.formatted("water")).run(List.of(), ZoneOffset.UTC).trail())
         .singleElement().satisfies(f -> assertThat(f.ruleId()).isEqualTo("OLD-GROUP"));
   }
 }
