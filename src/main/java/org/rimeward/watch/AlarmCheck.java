@@ -53,6 +53,7 @@ public final class AlarmCheck {
     for (BlockPlan b : plan.blocks()) {
       Block block = farm.blocks().stream().filter(x -> x.id().equals(b.blockId())).findFirst().orElseThrow();
       Optional<Action.Sprinkle> s = b.sprinkle().filter(Action.Sprinkle::withWater);
+      alarmTemperature(out, b, block, s, latest, now, zone, fmt);
       if (s.isPresent()) {
         Instant start = s.get().start();
         Instant stop = s.get().stop();
@@ -60,19 +61,6 @@ public final class AlarmCheck {
           if (!now.plus(p.lead()).isBefore(start)) {
             out.add(new Alarm(b.blockId(), AlarmKind.START_DUE, 1, now, "start sprinkling at "
                 + clock(start, zone) + " (in " + Duration.between(now, start).toMinutes() + " min)"));
-          }
-          // The plan's own alarm temperature for the block (rule ALARM-START), so that the watch
-          // rings at the number the plan told the manager to set the alarm at.
-          Optional<AlarmReading> alarm = b.alarm();
-          if (latest.isPresent() && alarm.isPresent()) {
-            double airNow = latest.get().airTempC() + block.coldAirOffsetC();
-            if (airNow <= alarm.get().alarmAirC()) {
-              out.add(new Alarm(b.blockId(), AlarmKind.ALARM_TEMPERATURE, 1, now, "air "
-                  + fmt.temp(airNow) + " at the block, at or below the alarm temperature the plan"
-                  + " sets, " + fmt.temp(alarm.get().alarmAirC()) + "; sprinkling starts when the air"
-                  + " falls to " + fmt.temp(alarm.get().startAirC()) + ", planned at "
-                  + clock(start, zone)));
-            }
           }
         } else if (now.isBefore(stop)) {
           out.add(new Alarm(b.blockId(), AlarmKind.START_DUE, 2, now, "start overdue since "
@@ -90,6 +78,41 @@ public final class AlarmCheck {
       }
     }
     return out;
+  }
+
+  /**
+   * The plan's own alarm temperature for the block (rules ALARM-*), so that the watch rings at the
+   * number the plan told the manager to set the alarm at: before a granted run starts, and on a
+   * block the plan gives no run (a near miss, a run advised against or left without water), where
+   * the cold coming early is exactly what the manager must hear.
+   */
+  private static void alarmTemperature(List<Alarm> out, BlockPlan b, Block block,
+      Optional<Action.Sprinkle> granted, Optional<Reading> latest, Instant now, ZoneId zone,
+      UnitFormat fmt) {
+    Optional<AlarmReading> alarm = b.alarm();
+    if (latest.isEmpty() || alarm.isEmpty()
+        || granted.isPresent() && !now.isBefore(granted.get().start())) {
+      return;
+    }
+    double airNow = latest.get().airTempC() + block.coldAirOffsetC();
+    if (airNow > alarm.get().alarmAirC()) {
+      return;
+    }
+    String then;
+    if (granted.isPresent()) {
+      then = "; sprinkling starts when the air falls to " + fmt.temp(alarm.get().startAirC())
+          + ", planned at " + clock(granted.get().start(), zone);
+    } else if (b.sprinkle().isPresent()) {
+      then = "; the plan does not sprinkle this block tonight (advised against, or no water for"
+          + " it): the crop is at risk below " + fmt.temp(alarm.get().startAirC())
+          + "; see the block's row for what to do instead";
+    } else {
+      then = "; the plan forecast a near miss: start sprinkling when the air falls to "
+          + fmt.temp(alarm.get().startAirC());
+    }
+    out.add(new Alarm(b.blockId(), AlarmKind.ALARM_TEMPERATURE, 1, now, "air " + fmt.temp(airNow)
+        + " at the block, at or below the alarm temperature the plan sets, "
+        + fmt.temp(alarm.get().alarmAirC()) + then));
   }
 
   private static void windAlarm(List<Alarm> out, BlockPlan b, double wind10m, double wind2m,
