@@ -240,6 +240,32 @@ public final class FarmLoader {
   }
 
   /** An id: typed on the command line and stored in the audit, so kept plain. */
+  /** An item of a list whose entries have ids: its fields, named by the id where it has one. */
+  record IdItem(Fields fields, String id) {}
+
+  /**
+   * Reads the id of one item of the list {@code listField} (water sources, sets, stations) and
+   * names the item's fields by it, so later problems say {@code water_sources[pond].max_flow};
+   * an id already used by an earlier item in {@code seen} (id to line) is a problem naming that
+   * line.
+   *
+   * @param noun what an item is, for the repeated-id message ("water source")
+   */
+  static IdItem idItem(Fields s, String listField, String noun, String hint,
+      Map<String, Integer> seen) {
+    String id = id(s, hint);
+    if (id == null) {
+      return new IdItem(s, null);
+    }
+    Fields named = s.renamed(listField + "[" + id + "]");
+    Integer previous = seen.putIfAbsent(id, named.lineOf("id"));
+    if (previous != null) {
+      named.problem("id", "'" + id + "' is already the id of the " + noun + " on line " + previous
+          + "; give each " + noun + " its own id");
+    }
+    return new IdItem(named, id);
+  }
+
   static String id(Fields s, String hint) {
     String id = s.text("id", hint);
     if (id != null && !Ids.ID.matcher(id).matches()) {

@@ -33,15 +33,10 @@ final class SprinklerSetReader {
       if (s == null) {
         continue;
       }
-      String id = FarmLoader.id(s, "a short name for the set, e.g. id: north-valve");
-      if (id != null) {
-        s = s.renamed(parent.field("sets") + "[" + id + "]");
-        Integer previous = lines.putIfAbsent(id, s.lineOf("id"));
-        if (previous != null) {
-          s.problem("id", "'" + id + "' is already the id of the set on line " + previous
-              + "; give each set its own id");
-        }
-      }
+      FarmLoader.IdItem item = FarmLoader.idItem(s, parent.field("sets"), "set",
+          "a short name for the set, e.g. id: north-valve", lines);
+      String id = item.id();
+      s = item.fields();
       s.allow("id", "area", "flow");
       Double area = s.value("area", FarmLoader.quantity(s, "area", Dimension.AREA),
           "the area the set wets, e.g. area: 1.2 ha or 3 ac");

@@ -33,15 +33,12 @@ final class WaterSourceReader {
         continue;
       }
       int before = s.problems().size();
-      String id = FarmLoader.id(s, "a short name blocks refer to, e.g. id: pond");
+      FarmLoader.IdItem item = FarmLoader.idItem(s, "water_sources", "water source",
+          "a short name blocks refer to, e.g. id: pond", lines);
+      String id = item.id();
+      s = item.fields();
       if (id != null) {
         declared.add(id);
-        s = s.renamed("water_sources[" + id + "]");
-        Integer previous = lines.putIfAbsent(id, s.lineOf("id"));
-        if (previous != null) {
-          s.problem("id", "'" + id + "' is already the id of the water source on line " + previous
-              + "; give each source its own id");
-        }
       }
       s.allow("id", "max_flow", "volume");
       Double flow = s.value("max_flow", FarmLoader.quantity(s, "max_flow", Dimension.FLOW),
