@@ -17,8 +17,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "edits", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "edits",
     description = "List the crop-profile edits recorded in the trail, oldest first: when (local"
         + " time), who, which crop, variety, stage and value, before and after, the note, and"
         + " whether the edit reached its file.")

@@ -8,8 +8,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
 
-@Command(name = "head", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "head",
     description = {"Print the newest record of the trail as SEQ:HASH, and nothing else.",
         "Send it somewhere the farm cannot rewrite (a mail each night, an insurer's file); later,"
             + " 'rimeward audit verify --head SEQ:HASH' proves the history up to it is unchanged."})

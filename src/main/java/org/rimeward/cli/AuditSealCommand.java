@@ -13,8 +13,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "seal", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "seal",
     description = {"Sign the trail's current head with an Ed25519 key kept outside the farm folder,"
         + " and add the seal to <farm>/audit.db.seals. 'audit verify' checks every seal it finds.",
         "Make a key once with --new-key FILE (FILE.pub is its public half, to hand to whoever"

@@ -21,8 +21,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "season", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "season",
     description = {"The season from the audit trail: per block the nights at risk and protected,"
         + " hours sprinkled, water used, cover nights, expected kill unprotected and with the"
         + " plan, and the loss avoided where crop values are set; per water source the water used"

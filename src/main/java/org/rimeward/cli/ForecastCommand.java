@@ -5,8 +5,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
-@Command(name = "forecast", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "forecast",
     description = {"Forecasts from public weather services, saved for the farm."},
     subcommands = {ForecastFetchCommand.class},
     footer = {"", Cautions.HELP_FOOTER})

@@ -17,8 +17,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-@Command(name = "fetch", mixinStandardHelpOptions = true,
-    versionProvider = RimewardCommand.Version.class,
+@Command(name = "fetch",
     description = {"Fetches tonight's forecast for the farm's point (farm.yaml's latitude and"
         + " longitude, to 4 decimals) from a public weather service and saves the response byte"
         + " for byte, with a record of the service, the URL and the time beside it. Prints the"
