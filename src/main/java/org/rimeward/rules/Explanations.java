@@ -23,7 +23,8 @@ import org.rimeward.units.UnitSystem;
  * a variable the rule bound ({@code $name}) and, optionally, an accessor of it. The unit is read
  * from the name's suffix, as everywhere in Rimeward: {@code ...C} a temperature, {@code ...MmH} a
  * rate, {@code ...Ms} a wind speed, {@code ...M3H} a flow, {@code ...M3} a volume, {@code ...Ha}
- * an area, {@code ...Pct} a percentage; {@code ...PerM3} is a ratio per cubic metre. Times show as local clock times in the farm's zone.
+ * an area, {@code ...Pct} a percentage, {@code ...HeightM} a height; {@code ...PerM3} is a ratio
+ * per cubic metre. Times show as local clock times in the farm's zone.
  */
 public final class Explanations {
   private static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z][A-Za-z0-9_]*(?:\\.[A-Za-z][A-Za-z0-9_]*)*)}");
@@ -173,6 +174,9 @@ public final class Explanations {
       return Dimension.PERCENT;
     }
     String lower = name.toLowerCase(Locale.ROOT);
+    if (lower.endsWith("heightm")) {
+      return Dimension.LENGTH;
+    }
     if (lower.endsWith("deltac") || lower.endsWith("marginc") || lower.endsWith("protectionc")
         || lower.endsWith("depressionc") || lower.endsWith("offsetc") || lower.endsWith("bandc")) {
       return Dimension.TEMPERATURE_DELTA;
