@@ -71,7 +71,8 @@ final class WatchCommand implements Callable<Integer> {
   @Option(names = "--on-alarm", paramLabel = "CMD", description = "Shell command to run for each alarm.")
   String onAlarm;
 
-  @Option(names = "--station", paramLabel = "ID", description = "The station to plan by.")
+  @Option(names = "--station", paramLabel = "ID", description = "Plan every block by this"
+      + " station's readings, over farm.yaml's stations (default: each block's own station).")
   String station;
 
   @Option(names = "--lead", paramLabel = "INTERVAL", defaultValue = "30m",

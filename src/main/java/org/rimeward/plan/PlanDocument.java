@@ -74,7 +74,7 @@ public record PlanDocument(
       OffsetDateTime lastAt,
       @JsonSerialize(using = Decimals.Two.class) Double biasC,
       @JsonSerialize(using = Decimals.Two.class) Double dewPointBiasC,
-      List<String> stations,
+      List<StationReadings> stations,
       String station,
       String method,
       String methodText,

@@ -25,6 +25,7 @@ import org.rimeward.audit.RunSummary;
 import org.rimeward.audit.WatchAlarm;
 import org.rimeward.plan.Action;
 import org.rimeward.plan.BlockPlan;
+import org.rimeward.plan.NightUpdate;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanChanges;
 import org.rimeward.plan.Replanner;
@@ -53,6 +54,8 @@ public final class NightWatch {
   private final List<Reading> readings = new ArrayList<>();
   private final List<Readings.Skipped> skipped = new ArrayList<>();
   private final Map<String, Integer> raised = new HashMap<>();
+  /** Undeclared stations already reported: once a watch, not once a pass. */
+  private final Set<String> announced = new HashSet<>();
   private Map<String, String> lastDecisions;
   private String lastRunId;
   private Plan lastPlan;
@@ -83,6 +86,7 @@ public final class NightWatch {
     if (batch.restarted()) {
       readings.clear();
       skipped.clear();
+      announced.clear();
     }
     readings.addAll(batch.readings());
     skipped.addAll(batch.skipped());
@@ -92,6 +96,14 @@ public final class NightWatch {
     Readings all = new Readings(readingsFile, readings, skipped);
     byte[] bytes = ReadingsReader.bytes(readingsFile);
     Plan plan = replanner.replan(all, bytes, now, station);
+    for (NightUpdate.StationSummary st : plan.update().readings().stations()) {
+      if (!st.declared() && !replanner.farm().stations().isEmpty() && st.blocks().isEmpty()
+          && announced.add(st.id())) {
+        err.println("rimeward: " + readingsFile.getFileName() + ": " + (st.id().isEmpty()
+            ? "" : "station '" + st.id() + "': ") + st.note());
+        err.flush();
+      }
+    }
     ZoneId zone = replanner.farm().zone();
     Set<String> running = new HashSet<>();
     boolean recorded = false;
@@ -121,10 +133,7 @@ public final class NightWatch {
         runId = lastRunId;
       }
       List<Alarm> fresh = new ArrayList<>();
-      Optional<Reading> latest = all.of(plan.update().readings().station()).stream()
-          .filter(x -> !x.time().isAfter(now)).reduce((a, b) -> b);
-      for (Alarm a : AlarmCheck.check(plan, replanner.farm(), replanner.lastForecast(), latest, now,
-          policy)) {
+      for (Alarm a : AlarmCheck.check(plan, replanner, now, policy)) {
         if (a.kind() == AlarmKind.START_DUE && a.level() > 1 && running.contains(a.blockId())) {
           continue;
         }
