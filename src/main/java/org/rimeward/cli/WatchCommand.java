@@ -122,9 +122,16 @@ final class WatchCommand implements Callable<Integer> {
     }
     var out = spec.commandLine().getOut();
     var err = spec.commandLine().getErr();
-    NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
+    try (NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
         noAudit ? Optional.empty() : Optional.of(audit != null ? audit : AuditStore.fileFor(farm)),
-        Optional.ofNullable(onAlarm), out, err);
+        Optional.ofNullable(onAlarm), out, err)) {
+      return watch(watch, file, start, clock, interval);
+    }
+  }
+
+  private int watch(NightWatch watch, Path file, Instant start, Clock clock, Duration interval)
+      throws InterruptedException {
+    var out = spec.commandLine().getOut();
     if (once) {
       int raised = watch.pass(start != null ? start : clock.instant()).raised().size();
       out.flush();
