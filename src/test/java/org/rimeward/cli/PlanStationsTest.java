@@ -249,4 +249,39 @@ class PlanStationsTest {
     Files.writeString(one, "time,air_temp_c\n2026-04-15T01:00-07:00,0.0\n");
     assertThat(plan(one).out()).contains("(forecast air: no reading yet)\n");
   }
+
+  /** The README's night with two thermometers, on the demo file made for it. */
+  @Test
+  void theReadmesTwoThermometers() throws Exception {
+    Files.writeString(farm.resolve("farm.yaml"), Files.readString(Path.of("demo-farm",
+        "farm.yaml")) + """
+
+        stations:
+          - id: mast              # the weather station by the pump house
+            height: 1.5 m
+            default: true
+          - id: hollow            # hung among hollow-cherry's trees, in the cold spot
+            height: 1.0 m
+            bud_height: 1.0 m
+            blocks: [hollow-cherry]
+        """);
+    Path file = Path.of("demo-farm", "stations-readings.csv");
+    Cli.Result at2230 = Cli.run(Clock.fixed(Instant.parse("2026-04-15T05:30:00Z"), ZoneOffset.UTC),
+        "plan", "--farm", farm.toString(), "--readings", file.toString(), "--now",
+        "2026-04-14T22:30-07:00", "--no-audit", "--format", "json");
+    JsonNode plan = JSON.readTree(at2230.out());
+    assertThat(plan.path("readings").path("rows_skipped").asInt()).isZero();
+    assertThat(station(plan, "mast").path("bias_c").asDouble()).isCloseTo(-1.4, within(0.05));
+    assertThat(station(plan, "hollow").path("bias_c").asDouble()).isCloseTo(-1.8, within(0.05));
+    assertThat(station(plan, "hollow").path("last_at").asText()).isEqualTo("2026-04-14T22:00-07:00");
+    assertThat(plan.path("cautions").toString()).contains("Station mast's thermometer hangs at"
+        + " 1.5 m above the ground, and farm.yaml gives no bud_height").doesNotContain(
+            "Station hollow");
+    Cli.Result at2310 = Cli.run(Clock.fixed(Instant.parse("2026-04-15T06:10:00Z"), ZoneOffset.UTC),
+        "plan", "--farm", farm.toString(), "--readings", file.toString(), "--now",
+        "2026-04-14T23:10-07:00", "--no-audit", "--format", "json");
+    JsonNode later = JSON.readTree(at2310.out());
+    assertThat(station(later, "hollow").path("stale").asBoolean()).isTrue();
+    assertThat(station(later, "mast").path("stale").asBoolean()).isFalse();
+  }
 }
