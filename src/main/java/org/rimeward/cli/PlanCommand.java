@@ -83,8 +83,9 @@ final class PlanCommand implements Callable<Integer> {
       + " from, e.g. 2026-04-15T00:30-07:00 or local 2026-04-15T00:30 (default: the clock).")
   String now;
 
-  @Option(names = "--station", paramLabel = "ID", description = "With --readings: the station to"
-      + " plan by (default: the only one, or the one running coldest against the forecast).")
+  @Option(names = "--station", paramLabel = "ID", description = "With --readings: plan every block"
+      + " by this station's readings, over farm.yaml's stations (default: each block's own station;"
+      + " a farm without stations: the only one, or the one running coldest against the forecast).")
   String station;
 
   @Override

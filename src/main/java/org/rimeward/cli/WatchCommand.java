@@ -74,7 +74,8 @@ final class WatchCommand implements Callable<Integer> {
   @Option(names = "--on-alarm", paramLabel = "CMD", description = "Shell command to run for each alarm.")
   String onAlarm;
 
-  @Option(names = "--station", paramLabel = "ID", description = "The station to plan by.")
+  @Option(names = "--station", paramLabel = "ID", description = "Plan every block by this"
+      + " station's readings, over farm.yaml's stations (default: each block's own station).")
   String station;
 
   @Option(names = "--lead", paramLabel = "INTERVAL",
@@ -137,10 +138,17 @@ final class WatchCommand implements Callable<Integer> {
     }
     var out = spec.commandLine().getOut();
     var err = spec.commandLine().getErr();
-    NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
+    try (NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
         UnitFormat.of(UnitsOption.of(spec)),
         noAudit ? Optional.empty() : Optional.of(audit != null ? audit : AuditStore.fileFor(farm)),
-        Optional.ofNullable(onAlarm), out, err);
+        Optional.ofNullable(onAlarm), out, err)) {
+      return watch(watch, file, start, clock, interval);
+    }
+  }
+
+  private int watch(NightWatch watch, Path file, Instant start, Clock clock, Duration interval)
+      throws InterruptedException {
+    var out = spec.commandLine().getOut();
     if (once) {
       int raised = watch.pass(start != null ? start : clock.instant()).raised().size();
       out.flush();

@@ -32,6 +32,8 @@ import java.util.Set;
  * @param rulesDir the rules folder farm.yaml names, resolved against the folder
  * @param contact who the weather services may contact about this farm's requests (an e-mail
  *     address or web page), sent with {@code forecast fetch} where a service asks for one
+ * @param stations the thermometers farm.yaml declares, in file order (none: the readings file's
+ *     one station, or the one chosen, stands for every block)
  */
 public record Farm(
     String name,
@@ -47,7 +49,8 @@ public record Farm(
     SourceRef origin,
     Optional<Path> cropProfilesDir,
     Optional<Path> rulesDir,
-    Optional<String> contact) {
+    Optional<String> contact,
+    List<Station> stations) {
 
   /** Elevations accepted, m: the range the station-pressure formula is used over, one range. */
   public static final double MIN_ELEVATION_M = org.rimeward.physics.Atmosphere.MIN_ELEVATION_M;
@@ -104,6 +107,50 @@ public record Farm(
         }
       });
     }
+    stations = List.copyOf(stations);
+    Set<String> stationIds = new HashSet<>();
+    Set<String> listed = new HashSet<>();
+    long defaults = 0;
+    for (Station st : stations) {
+      if (!stationIds.add(st.id())) {
+        throw new IllegalArgumentException("station id " + st.id() + " is used twice");
+      }
+      defaults += st.isDefault() ? 1 : 0;
+      for (String b : st.blockIds()) {
+        if (!blockIds.contains(b)) {
+          throw new IllegalArgumentException("station " + st.id() + " stands for block " + b
+              + ", which the farm does not have");
+        }
+        if (!listed.add(b)) {
+          throw new IllegalArgumentException("block " + b + " is listed under two stations");
+        }
+      }
+    }
+    if (defaults > 1) {
+      throw new IllegalArgumentException("more than one station is the default");
+    }
+    if (!stations.isEmpty() && defaults == 0 && listed.size() < blocks.size()) {
+      throw new IllegalArgumentException("some blocks have no station and no station is the default");
+    }
+  }
+
+  /** The station that stands for the blocks no station lists, if farm.yaml declares one. */
+  public Optional<Station> defaultStation() {
+    return stations.stream().filter(Station::isDefault).findFirst();
+  }
+
+  /** The station whose readings stand for {@code blockId}: the one listing it, else the default. */
+  public Optional<Station> stationOf(String blockId) {
+    return listedStation(blockId).or(this::defaultStation);
+  }
+
+  /** The station that lists {@code blockId}, hanging in that block, if any. */
+  public Optional<Station> listedStation(String blockId) {
+    return stations.stream().filter(s -> s.blockIds().contains(blockId)).findFirst();
+  }
+
+  public Optional<Station> station(String id) {
+    return stations.stream().filter(s -> s.id().equals(id)).findFirst();
   }
 
   /** The farm folder's own crop profiles: the folder farm.yaml names, else {@code crop-profiles/} there. */

@@ -27,7 +27,7 @@ import org.rimeward.units.Quantities;
 
 /**
  * Reads and checks a farm file: the {@code farm} section and the forecast's name here, the
- * policy, water sources and blocks in their own readers. Every problem in the file is collected
+ * policy, water sources, blocks and stations in their own readers. Every problem in the file is collected
  * and reported at once, each starting with {@code file:line}, naming the field and the value,
  * and saying what to write instead. Checks that need the crop profiles (unknown crop or stage)
  * are left to the planner, which gets each block's field lines through {@link Block#lineOf}.
@@ -68,7 +68,8 @@ public final class FarmLoader {
     if (top == null) {
       return null;
     }
-    top.allow("farm", "forecast", "policy", "water_sources", "blocks", "crop_profiles", "rules");
+    top.allow("farm", "forecast", "policy", "water_sources", "blocks", "stations", "crop_profiles",
+        "rules");
     if (!top.has("farm")) {
       top.text("farm", "the farm's name, latitude, longitude, elevation and timezone");
     }
@@ -100,13 +101,15 @@ public final class FarmLoader {
     Map<String, WaterSource> sourcesById = new LinkedHashMap<>();
     sources.forEach(s -> sourcesById.put(s.id(), s));
     List<Block> blocks = blocks(top, sourcesById, declared);
+    List<Station> stations = StationReader.read(top, writtenBlockIds(top));
     if (!problems.isEmpty() || name == null || latitude == null || longitude == null
         || elevationM == null || zone == null || policy == null || forecastFile == null) {
       return null;
     }
     try {
       return new Farm(name, latitude, longitude, elevationM, zone, folder, forecastFile, policy,
-          sources, blocks, new SourceRef(problems.label(), 1), cropProfiles, rules, contact);
+          sources, blocks, new SourceRef(problems.label(), 1), cropProfiles, rules, contact,
+          stations);
     } catch (IllegalArgumentException e) {
       throw BadInputException.at(problems.label(), e.getMessage());
     }
@@ -232,6 +235,21 @@ public final class FarmLoader {
       blocks.add(b);
     }
     return blocks;
+  }
+
+  /** The id of every block written, usable or not, with its line, in file order. */
+  private static Map<String, Integer> writtenBlockIds(Fields top) {
+    Map<String, Integer> ids = new LinkedHashMap<>();
+    Node list = top.has("blocks") ? top.entry("blocks").value() : null;
+    if (list instanceof SeqNode seq) {
+      for (Node item : seq.items()) {
+        if (item instanceof Yaml.MapNode m && m.get("id") instanceof Yaml.Scalar id
+            && id.value() != null) {
+          ids.putIfAbsent(id.value(), id.line());
+        }
+      }
+    }
+    return ids;
   }
 
   /** Reads a field as a quantity of {@code dim}, named by its field path in messages. */

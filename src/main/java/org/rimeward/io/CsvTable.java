@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
@@ -18,6 +19,9 @@ import org.apache.commons.csv.DuplicateHeaderMode;
  * semicolon or tab between values (the header line says which), decimal commas where values are
  * separated by semicolons or tabs (a European spreadsheet's export), {@code #} comment lines,
  * blank lines, and a typographic minus. Every row knows the line it was written on.
+ *
+ * <p>A file that grows while it is read (a logger's) is read as its {@link #header} and then one
+ * line at a time ({@link #row}), so that a bad line costs that line and not the ones after it.
  */
 public final class CsvTable {
   private static final Pattern DECIMAL_COMMA_SPLIT = Pattern.compile("(^|,)\\s*[+-\u2212]?\\d+,\\d");
@@ -27,6 +31,7 @@ public final class CsvTable {
   private final List<String> columns;
   private final List<Row> rows;
   private final int headerLine;
+  private CSVFormat rowFormat;
 
   private CsvTable(String label, char delimiter, List<String> columns, List<Row> rows,
       int headerLine) {
@@ -54,10 +59,45 @@ public final class CsvTable {
    * file.
    */
   public static CsvTable read(TextFile file, String headerExample) {
-    String text = file.text();
-    String label = file.label();
-    char delimiter = delimiter(text);
-    CSVFormat format = CSVFormat.DEFAULT.builder()
+    return parse(file.text(), file.label(), headerExample, 0);
+  }
+
+  /**
+   * The table of a header line alone, the line {@code line} of the file {@code label}: rows are
+   * then read one at a time by {@link #row}. Refused as {@link #read} refuses a header.
+   */
+  public static CsvTable header(String label, String headerLine, int line, String headerExample) {
+    return parse(headerLine, label, headerExample, line - 1);
+  }
+
+  /**
+   * One line of the file under this table's header, as line {@code line}: empty for a blank or
+   * comment line.
+   *
+   * @throws BadInputException for a line that is not readable as CSV (an unbalanced quote)
+   */
+  public Optional<Row> row(String text, int line) {
+    String stripped = text.strip();
+    if (stripped.isEmpty() || stripped.startsWith("#")) {
+      return Optional.empty();
+    }
+    if (rowFormat == null) {
+      rowFormat = format(delimiter).builder().setHeader(columns.toArray(String[]::new))
+          .setSkipHeaderRecord(false).get();
+    }
+    try (CSVParser parser = CSVParser.parse(text, rowFormat)) {
+      List<CSVRecord> records = parser.getRecords();
+      if (records.isEmpty() || Arrays.stream(records.get(0).values()).allMatch(String::isBlank)) {
+        return Optional.empty();
+      }
+      return Optional.of(new Row(line, records.get(0)));
+    } catch (IOException | UncheckedIOException | IllegalStateException e) {
+      throw quoteProblem(text, label, new LineIndex(text), 0, line - 1, e);
+    }
+  }
+
+  private static CSVFormat format(char delimiter) {
+    return CSVFormat.DEFAULT.builder()
         .setDelimiter(delimiter)
         .setCommentMarker('#')
         .setIgnoreEmptyLines(true)
@@ -68,6 +108,12 @@ public final class CsvTable {
         .setDuplicateHeaderMode(DuplicateHeaderMode.DISALLOW)
         .setAllowMissingColumnNames(false)
         .get();
+  }
+
+  /** Parses {@code text}, whose first line is line {@code lineOffset} + 1 of the file. */
+  private static CsvTable parse(String text, String label, String headerExample, int lineOffset) {
+    char delimiter = delimiter(text);
+    CSVFormat format = format(delimiter);
     LineIndex lines = new LineIndex(text);
     List<Row> rows = new ArrayList<>();
     long goodUpTo = 0;
@@ -83,16 +129,16 @@ public final class CsvTable {
         if (Arrays.stream(r.values()).allMatch(String::isBlank)) {
           continue;
         }
-        rows.add(new Row(lines.lineAt(r.getCharacterPosition()), r));
+        rows.add(new Row(lines.lineAt(r.getCharacterPosition()) + lineOffset, r));
       }
     } catch (IllegalArgumentException e) {
       // Commons CSV refuses a header with a blank or repeated name; say which.
-      throw BadInputException.at(label + ":" + lines.lineAt(0), headerProblem(
+      throw BadInputException.at(label + ":" + (lines.lineAt(0) + lineOffset), headerProblem(
           lines.firstContentLine(), delimiter) + ", e.g. " + headerExample);
     } catch (IOException | UncheckedIOException | IllegalStateException e) {
-      throw quoteProblem(text, label, lines, goodUpTo, e);
+      throw quoteProblem(text, label, lines, goodUpTo, lineOffset, e);
     }
-    return new CsvTable(label, delimiter, columns, rows, lines.lineAt(0));
+    return new CsvTable(label, delimiter, columns, rows, lines.lineAt(0) + lineOffset);
   }
 
   private static String headerProblem(String header, char delimiter) {
@@ -138,9 +184,9 @@ public final class CsvTable {
   }
 
   private static BadInputException quoteProblem(String text, String label, LineIndex lines,
-      long from, Exception e) {
+      long from, int lineOffset, Exception e) {
     int quote = text.indexOf('"', (int) Math.min(from, text.length()));
-    int line = lines.lineAt(quote >= 0 ? quote : from);
+    int line = lines.lineAt(quote >= 0 ? quote : from) + lineOffset;
     String why = String.valueOf(e.getMessage()).toLowerCase(Locale.ROOT);
     if (why.contains("eof") || why.contains("encapsulated")) {
       return new BadInputException(label + ":" + line + ": a quote (\") opens here and never"

@@ -36,13 +36,14 @@ final class BlockPhysics {
 
   static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
       double pressureKPa, String forecastName) {
-    return compute(block, t10C, t90C, steps, pressureKPa, forecastName, new Memo());
+    return compute(block, block.coldAirOffsetC(), t10C, t90C, steps, pressureKPa, forecastName,
+        new Memo());
   }
 
   /**
    * The per-step physics depends on a block only through its cold-air offset and its sprinkler
    * water temperature, so blocks that share both share one computation; a region of thousands
-   * of blocks has few distinct pairs.
+   * of blocks has few distinct pairs. A memo serves one forecast.
    */
   static final class Memo {
     private final Map<List<Double>, Steps> bySite = new HashMap<>();
@@ -51,13 +52,17 @@ final class BlockPhysics {
   /** One site's night, step by step, before it is tied to a block. */
   private record Steps(long[] t, int[] lines, Map<Measure, double[]> v) {}
 
-  static BlockNight compute(Block block, double t10C, double t90C, List<ForecastStep> steps,
-      double pressureKPa, String forecastName, Memo memo) {
+  /**
+   * {@code block}'s night from {@code steps}, its air {@code coldAirOffsetC} off theirs (the
+   * block's own offset, or none where its station's readings are already the block's air).
+   */
+  static BlockNight compute(Block block, double coldAirOffsetC, double t10C, double t90C,
+      List<ForecastStep> steps, double pressureKPa, String forecastName, Memo memo) {
     double waterTempC = block.sprinklers().map(s -> s.waterTempC()).orElse(Sprinklers.DEFAULT_WATER_TEMP_C);
-    List<Double> site = List.of(block.coldAirOffsetC(), waterTempC);
+    List<Double> site = List.of(coldAirOffsetC, waterTempC);
     Steps computed = memo.bySite.get(site);
     if (computed == null) {
-      computed = steps(block, steps, pressureKPa, forecastName, waterTempC);
+      computed = steps(block, coldAirOffsetC, steps, pressureKPa, forecastName, waterTempC);
       memo.bySite.put(site, computed);
     }
     // NightSeries copies what it is given, so the shared arrays stay untouched.
@@ -67,8 +72,8 @@ final class BlockPhysics {
     return BlockNight.of(block.id(), series, kill);
   }
 
-  private static Steps steps(Block block, List<ForecastStep> steps, double pressureKPa,
-      String forecastName, double waterTempC) {
+  private static Steps steps(Block block, double coldAirOffsetC, List<ForecastStep> steps,
+      double pressureKPa, String forecastName, double waterTempC) {
     int n = steps.size();
     long[] t = new long[n];
     int[] lines = new int[n];
@@ -83,7 +88,7 @@ final class BlockPhysics {
       t[i] = s.time().getEpochSecond();
       lines[i] = s.line();
       try {
-        double air = s.airTempC() + block.coldAirOffsetC();
+        double air = s.airTempC() + coldAirOffsetC;
         // Air cooled in a cold pocket cannot hold more vapour than saturation: dew point ≤ air.
         double dew = Math.min(s.dewPointC(), air);
         double wind2m = Wind.at2mMs(s.windMs(), s.windHeightM());

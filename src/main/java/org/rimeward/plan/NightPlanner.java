@@ -11,6 +11,7 @@ import java.time.ZonedDateTime;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashMap;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -22,6 +23,7 @@ import org.rimeward.farm.Block;
 import org.rimeward.farm.Farm;
 import org.rimeward.farm.FarmLoader;
 import org.rimeward.farm.Policy;
+import org.rimeward.farm.Station;
 import org.rimeward.farm.Target;
 import org.rimeward.farm.WaterSource;
 import org.rimeward.io.BadInputException;
@@ -35,6 +37,7 @@ import org.rimeward.rules.facts.BlockSets;
 import org.rimeward.rules.facts.BlockNight;
 import org.rimeward.rules.facts.NightFact;
 import org.rimeward.rules.facts.PolicyFact;
+import org.rimeward.rules.facts.StationFact;
 import org.rimeward.rules.facts.StopBasis;
 import org.rimeward.rules.facts.StopBeyondForecast;
 import org.rimeward.rules.facts.TargetBasis;
@@ -120,6 +123,21 @@ public final class NightPlanner {
   /** Plans a night from inputs already read. */
   public Plan plan(Farm farm, Forecast forecast, CropLibrary crops, RuleBook book, LocalDate night,
       PlanInputs inputs) {
+    return plan(farm, forecast, Map.of(), crops, book, night, inputs);
+  }
+
+  /**
+   * The forecast one block is planned by when it is not the night's (a re-plan corrects each
+   * block by its own station's readings), and the cold-air offset still to add to it.
+   */
+  record BlockWeather(Forecast forecast, double coldAirOffsetC) {}
+
+  /**
+   * Plans a night from inputs already read; a block named in {@code byBlock} is planned by its
+   * own forecast, the others by {@code forecast}, which also gives the night's coldest air.
+   */
+  Plan plan(Farm farm, Forecast forecast, Map<String, BlockWeather> byBlock, CropLibrary crops,
+      RuleBook book, LocalDate night, PlanInputs inputs) {
     String forecastName = forecast.file().getFileName().toString();
     LocalDate date = night != null ? night : defaultNight(forecast, farm);
     Night sun = SunCalculator.night(farm.latitude(), farm.longitude(), date, farm.zone());
@@ -143,15 +161,29 @@ public final class NightPlanner {
     for (WaterSource w : farm.waterSources()) {
       facts.add(new WaterSourceFact(w.id(), w.maxFlowM3H(), w.volumeM3().orElse(Double.NaN)));
     }
+    for (Station st : farm.stations()) {
+      List<String> standsFor = farm.blocks().stream().map(Block::id)
+          .filter(id -> farm.stationOf(id).filter(st::equals).isPresent()).toList();
+      facts.add(new StationFact(st.id(), st.heightM(), st.budHeightM().orElse(Double.NaN),
+          String.join(", ", standsFor)));
+    }
     Map<String, BlockFact> blockFacts = new HashMap<>();
     Map<String, BlockNight> nights = new HashMap<>();
-    // Blocks of one crop and variety share a profile, and blocks of one site its physics.
+    // Blocks of one crop and variety share a profile, and blocks of one site and forecast their
+    // physics.
     Map<List<String>, EffectiveProfile> profiles = new HashMap<>();
-    BlockPhysics.Memo physics = new BlockPhysics.Memo();
+    Map<Forecast, BlockPhysics.Memo> physics = new IdentityHashMap<>();
+    Map<Forecast, List<ForecastStep>> windows = new IdentityHashMap<>();
+    windows.put(forecast, window);
     for (Block b : farm.blocks()) {
-      BlockFact bf = blockFact(b, crops, profiles);
-      BlockNight bn = BlockPhysics.compute(b, bf.t10C(), bf.t90C(), window, pressureKPa, forecastName,
-          physics);
+      BlockWeather weather = byBlock.getOrDefault(b.id(), new BlockWeather(forecast,
+          b.coldAirOffsetC()));
+      List<ForecastStep> steps = windows.computeIfAbsent(weather.forecast(), f -> window(f,
+          forecastName, farm, date, sunset, sunrise));
+      BlockFact bf = blockFact(b, weather.coldAirOffsetC(), crops, profiles);
+      BlockNight bn = BlockPhysics.compute(b, weather.coldAirOffsetC(), bf.t10C(), bf.t90C(), steps,
+          pressureKPa, forecastName, physics.computeIfAbsent(weather.forecast(),
+              f -> new BlockPhysics.Memo()));
       blockFacts.put(b.id(), bf);
       nights.put(b.id(), bn);
       facts.add(bf);
@@ -288,10 +320,11 @@ public final class NightPlanner {
   }
 
   static BlockFact blockFact(Block b, CropLibrary crops) {
-    return blockFact(b, crops, new HashMap<>());
+    return blockFact(b, b.coldAirOffsetC(), crops, new HashMap<>());
   }
 
-  static BlockFact blockFact(Block b, CropLibrary crops, Map<List<String>, EffectiveProfile> profiles) {
+  static BlockFact blockFact(Block b, double coldAirOffsetC, CropLibrary crops,
+      Map<List<String>, EffectiveProfile> profiles) {
     EffectiveProfile found;
     try {
       found = profiles.computeIfAbsent(java.util.Arrays.asList(b.crop(), b.variety()),
@@ -308,7 +341,7 @@ public final class NightPlanner {
     var sprinklers = b.sprinklers();
     var covers = b.covers();
     return new BlockFact(b.id(), b.crop(), b.variety(), stage.id(), stage.name(), stage.flowering(),
-        b.areaHa(), stage.t10C(), stage.t90C(), stage.source(), b.coldAirOffsetC(),
+        b.areaHa(), stage.t10C(), stage.t90C(), stage.source(), coldAirOffsetC,
         b.cropValuePerHa().orElse(Double.NaN), sprinklers.isPresent(),
         sprinklers.map(s -> s.rateMmH()).orElse(0.0), sprinklers.map(s -> s.sourceId()).orElse(null),
         covers.isPresent(), covers.map(c -> c.protectionC()).orElse(0.0),

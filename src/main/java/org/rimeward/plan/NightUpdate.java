@@ -26,31 +26,68 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
   }
 
   /**
-   * The readings a re-plan used.
+   * The readings a re-plan used. The top-level figures are the main station's: the farm's default
+   * station, or the one planned by when farm.yaml declares none; each station's are in
+   * {@link #stations}.
    *
    * @param file the readings file's name
-   * @param lastAt the latest reading at or before now, of the station used
+   * @param lastAt the latest reading at or before now, of the main station
    * @param biasC mean observed − forecast air temperature over the last hour, °C (NaN: unknown)
    * @param dewBiasC the same for the dew point (NaN: unknown)
-   * @param stations every station in the file (the empty id: the file names none)
-   * @param station the station planned by
+   * @param stations every station in the file or in farm.yaml, with the blocks each stands for
+   * @param station the main station (the empty id: the file names none)
    * @param method the correction method's stable name
    * @param methodText the method in words
    * @param rows usable rows read
    * @param skipped messages of the rows skipped
-   * @param stale whether no reading falls in the last {@link ReadingsSummary#STALE_AFTER_MIN}
-   *     minutes before now
+   * @param stale whether a station that stands for a block has no reading in the last
+   *     {@code staleAfterMin} minutes before now
+   * @param staleAfterMin the rule files' stale limit (rule THRESHOLDS)
    * @param siteMinimum the site model's minimum beside the forecast's, when it applies
    */
   public record ReadingsSummary(String file, Optional<Instant> lastAt, double biasC, double dewBiasC,
-      List<String> stations, String station, String method, String methodText, int rows,
-      List<String> skipped, boolean stale, Optional<SiteMinimum> siteMinimum) {
-    /** No reading for this long is stale: the station or its logger has failed (common practice). */
-    public static final int STALE_AFTER_MIN = 60;
-
+      List<StationSummary> stations, String station, String method, String methodText, int rows,
+      List<String> skipped, boolean stale, int staleAfterMin, Optional<SiteMinimum> siteMinimum) {
     public ReadingsSummary {
       stations = List.copyOf(stations);
       skipped = List.copyOf(skipped);
+    }
+
+    /** The station whose readings corrected {@code blockId}'s forecast, if any did. */
+    public Optional<StationSummary> stationOf(String blockId) {
+      return stations.stream().filter(s -> s.blocks().contains(blockId)).findFirst();
+    }
+
+    /** The stations that stand for at least one block. */
+    public List<StationSummary> planning() {
+      return stations.stream().filter(s -> !s.blocks().isEmpty()).toList();
+    }
+  }
+
+  /**
+   * One station's readings in a re-plan.
+   *
+   * @param id the station's id (empty: the file names none)
+   * @param declared whether farm.yaml declares it; an undeclared station's rows are not used
+   * @param isDefault whether it stands for the blocks no station lists
+   * @param heightM its thermometer's height above the ground, m (NaN: not declared)
+   * @param budHeightM the height of its blocks' lowest buds, m (NaN: not given)
+   * @param blocks the blocks whose forecast its readings corrected
+   * @param rows its usable rows
+   * @param lastAt its latest reading at or before now
+   * @param biasC its mean observed − forecast air over the last hour, °C (NaN: unknown)
+   * @param dewBiasC the same for the dew point
+   * @param stale whether it has no reading in the last the rule files' stale limit
+   * @param note what the grower should know about it (empty: nothing)
+   */
+  public record StationSummary(String id, boolean declared, boolean isDefault, double heightM,
+      double budHeightM, List<String> blocks, int rows, Optional<Instant> lastAt, double biasC,
+      double dewBiasC, boolean stale, String note) {
+    public StationSummary {
+      Objects.requireNonNull(id, "id");
+      blocks = List.copyOf(blocks);
+      Objects.requireNonNull(lastAt, "lastAt");
+      Objects.requireNonNull(note, "note");
     }
   }
 

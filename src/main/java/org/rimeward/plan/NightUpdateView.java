@@ -22,10 +22,16 @@ final class NightUpdateView {
     PlanDocument.SiteMinimum site = r.siteMinimum().map(s -> new PlanDocument.SiteMinimum(s.t0C(),
         s.td0C(), s.siteMinC(), s.intervalHalfC(), nullIfNaN(s.forecastMinC()), s.usedSite(),
         s.why())).orElse(null);
+    List<StationReadings> stations = r.stations().stream().map(st -> new StationReadings(st.id(),
+        st.declared(), st.isDefault(), nullIfNaN(st.heightM()), nullIfNaN(st.budHeightM()),
+        st.blocks(), st.rows(), st.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null),
+        nullIfNaN(st.biasC()), nullIfNaN(st.dewBiasC()), st.stale(),
+        st.note().isEmpty() ? null : st.note())).toList();
     return new PlanDocument.Readings(r.file(),
         r.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null), nullIfNaN(r.biasC()),
-        nullIfNaN(r.dewBiasC()), r.stations(), r.station(), r.method(), r.methodText(), r.rows(),
-        r.skipped().size(), r.skipped().stream().limit(5).toList(), r.stale(), site);
+        nullIfNaN(r.dewBiasC()), stations, r.station(), r.method(), r.methodText(), r.rows(),
+        r.skipped().size(), r.skipped().stream().limit(5).toList(), r.stale(), r.staleAfterMin(),
+        site);
   }
 
   static List<PlanDocument.Change> changes(NightUpdate u) {
@@ -48,8 +54,11 @@ final class NightUpdateView {
   /** The lines that come first in the text: what changed, then what the readings showed. */
   static String header(PlanDocument plan, UnitFormat fmt) {
     PlanDocument.Readings r = plan.readings();
+    List<StationReadings> planning = r == null ? List.of() : r.stations().stream()
+        .filter(st -> !st.blocks().isEmpty()).toList();
     StringBuilder sb = new StringBuilder();
-    sb.append("Re-planned at ").append(fmt.clock(plan.now())).append(" from the station's readings\n");
+    sb.append("Re-planned at ").append(fmt.clock(plan.now())).append(planning.size() > 1
+        ? " from the stations' readings\n" : " from the station's readings\n");
     List<PlanDocument.Change> changes = plan.changes() == null ? List.of() : plan.changes();
     if (changes.isEmpty()) {
       sb.append("  No decision changed since the latest recorded plan for this night.\n");
@@ -60,18 +69,34 @@ final class NightUpdateView {
     if (r == null) {
       return sb.append('\n').toString();
     }
-    sb.append("  Readings (").append(r.file())
-        .append(r.station() == null || r.station().isEmpty() ? "" : ", station " + r.station())
-        .append("): ").append(r.lastAt() == null ? "none yet" : "last at " + fmt.clock(r.lastAt()));
-    if (r.biasC() != null) {
-      sb.append(", ").append(fmt.tempDelta(Math.abs(r.biasC()))).append(r.biasC() < 0 ? " colder"
-          : " warmer").append(" than forecast over the last hour");
+    if (planning.size() > 1) {
+      sb.append("  Readings (").append(r.file()).append("), by station:\n");
+      for (StationReadings st : planning) {
+        sb.append("  - ").append(st.id()).append(st.isDefault() ? " (default" : " (").append(
+            st.heightM() == null ? "" : (st.isDefault() ? ", " : "") + "thermometer "
+                + fmt.length(st.heightM())).append(") for ").append(String.join(", ", st.blocks()))
+            .append(": ").append(last(st.lastAt(), st.biasC(), fmt)).append('\n');
+        if (st.stale()) {
+          sb.append("    STALE: no reading in the last ").append(staleLimit(r)).append("; the station or its logger may have failed. Its"
+                  + " blocks' rest of the night is the forecast").append(st.biasC() == null
+                  ? " alone" : "").append(".\n");
+        }
+      }
+    } else {
+      sb.append("  Readings (").append(r.file())
+          .append(r.station() == null || r.station().isEmpty() ? "" : ", station " + r.station())
+          .append("): ").append(last(r.lastAt(), r.biasC(), fmt)).append('\n');
+      if (r.stale()) {
+        sb.append("  STALE: no reading in the last ").append(staleLimit(r)).append("; the station or its logger may have failed. The rest of"
+                + " the night is the forecast").append(r.biasC() == null ? " alone" : "").append(".\n");
+      }
     }
-    sb.append('\n');
-    if (r.stale()) {
-      sb.append("  STALE: no reading in the last ").append(NightUpdate.ReadingsSummary.STALE_AFTER_MIN)
-          .append(" min; the station or its logger may have failed. The rest of the night is the"
-              + " forecast").append(r.biasC() == null ? " alone" : "").append(".\n");
+    for (StationReadings st : r.stations()) {
+      if (!st.declared() && st.blocks().isEmpty() && st.note() != null
+          && !st.note().startsWith("not planned by")) {
+        sb.append("  ").append(st.id().isEmpty() ? "" : "Station " + st.id() + ": ")
+            .append(st.note()).append(".\n");
+      }
     }
     if (r.rowsSkipped() > 0) {
       sb.append("  ").append(r.rowsSkipped()).append(" unusable row(s) skipped; first: ")
@@ -82,6 +107,39 @@ final class NightUpdateView {
       sb.append("  Site minimum: ").append(inUnits(r.siteMinimum().why(), fmt)).append(".\n");
     }
     return sb.append('\n').toString();
+  }
+
+  private static String last(OffsetDateTime lastAt, Double biasC, UnitFormat fmt) {
+    StringBuilder sb = new StringBuilder(lastAt == null ? "none yet" : "last at " + fmt.clock(lastAt));
+    if (biasC != null && Math.abs(biasC) < 0.05) {
+      sb.append(", matching the forecast over the last hour");
+    } else if (biasC != null) {
+      sb.append(", ").append(fmt.tempDelta(Math.abs(biasC))).append(biasC < 0 ? " colder"
+          : " warmer").append(" than forecast over the last hour");
+    }
+    return sb.toString();
+  }
+
+  /**
+   * The words after the night's coldest air in the text's second line: what that air is, the
+   * forecast's or the forecast corrected by readings.
+   */
+  static String coldestBasis(PlanDocument plan) {
+    PlanDocument.Readings r = plan.readings();
+    if (plan.now() == null || r == null) {
+      return "forecast air";
+    }
+    if (r.lastAt() == null) {
+      return "forecast air: no reading yet";
+    }
+    boolean several = r.stations().stream().filter(st -> !st.blocks().isEmpty()).count() > 1;
+    return "forecast corrected by " + (several && r.station() != null && !r.station().isEmpty()
+        ? "station " + r.station() + "'s readings" : "readings");
+  }
+
+  /** The rule files' stale limit as the plan recorded it; older plans did not record it. */
+  private static String staleLimit(PlanDocument.Readings r) {
+    return r.staleAfterMin() == null ? "hour" : r.staleAfterMin() + " min";
   }
 
   /** The recorded words are metric; other units rewrite their temperatures. */

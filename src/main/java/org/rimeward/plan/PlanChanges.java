@@ -25,10 +25,10 @@ public final class PlanChanges {
     PlanDocument before = PlanJson.read(previousPlanJson);
     PlanDocument after = PlanDocuments.of(now);
     ZoneId zone = now.night().zone();
-    String reason = reason(now);
     List<NightUpdate.Change> out = new ArrayList<>();
     for (PlanDocument.Block b : after.blocks()) {
       String id = b.block();
+      String reason = reason(now, id);
       Optional<PlanDocument.Block> found = before.block(id);
       if (found.isEmpty()) {
         continue;
@@ -68,15 +68,24 @@ public final class PlanChanges {
     out.add(new NightUpdate.Change(id, what, before, after, text + reason));
   }
 
-  private static String reason(Plan p) {
-    if (p.update() == null || Double.isNaN(p.update().readings().biasC())) {
+  /** Why {@code blockId} moved: the offset of the readings that corrected it. */
+  private static String reason(Plan p, String blockId) {
+    if (p.update() == null) {
       return "";
     }
-    double bias = p.update().readings().biasC();
-    if (Math.abs(bias) < 0.05) {
-      return " (readings match the forecast)";
+    NightUpdate.ReadingsSummary r = p.update().readings();
+    Optional<NightUpdate.StationSummary> st = r.stationOf(blockId);
+    double bias = st.map(NightUpdate.StationSummary::biasC).orElse(r.biasC());
+    if (Double.isNaN(bias)) {
+      return "";
     }
-    return String.format(Locale.ROOT, " (readings %.1f °C %s than forecast)", Math.abs(bias),
+    // With several stations, say whose readings moved the block.
+    String whose = st.isPresent() && r.planning().size() > 1 ? "station " + st.get().id() + "'s"
+        + " readings" : "readings";
+    if (Math.abs(bias) < 0.05) {
+      return " (" + whose + " match the forecast)";
+    }
+    return String.format(Locale.ROOT, " (%s %.1f °C %s than forecast)", whose, Math.abs(bias),
         bias < 0 ? "colder" : "warmer");
   }
 

@@ -74,7 +74,7 @@ public record PlanDocument(
       OffsetDateTime lastAt,
       @JsonSerialize(using = Decimals.Two.class) Double biasC,
       @JsonSerialize(using = Decimals.Two.class) Double dewPointBiasC,
-      List<String> stations,
+      List<StationReadings> stations,
       String station,
       String method,
       String methodText,
@@ -82,6 +82,7 @@ public record PlanDocument(
       int rowsSkipped,
       List<String> skipped,
       boolean stale,
+      Integer staleAfterMin,
       SiteMinimum siteMinimum) {
     public Readings {
       stations = stations == null ? List.of() : List.copyOf(stations);

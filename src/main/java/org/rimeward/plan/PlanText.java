@@ -76,7 +76,8 @@ public final class PlanText {
         .append(" (").append(n.zone()).append(")\n");
     sb.append("  sunset ").append(fmt.dayClock(n.sunset())).append(", sunrise ")
         .append(fmt.dayClock(n.sunrise())).append(", coldest ").append(fmt.temp(n.minAirC()))
-        .append(" at ").append(fmt.dayClock(n.coldestAt())).append(" (forecast air)\n");
+        .append(" at ").append(fmt.dayClock(n.coldestAt())).append(" (")
+        .append(NightUpdateView.coldestBasis(plan)).append(")\n");
     sb.append("  Decision support only: check thermometers at bud height in each block, and follow"
         + " local codes, water rights and licensed practice.\n");
     inputs(sb, plan.inputs());

@@ -68,6 +68,11 @@ final class SiteMinimumStep {
     return new SiteMinimumStep(Optional.of(SiteMinimumFile.read(file)), use, criteria);
   }
 
+  /** The station the model was fitted to (empty: its history named none); empty without a model. */
+  Optional<String> station() {
+    return model.map(SiteMinimumModel::station);
+  }
+
   Optional<NightUpdate.SiteMinimum> apply(List<Reading> readings, java.time.LocalDate night,
       Instant sunset, Instant sunrise, Instant now, ForecastCorrection.Corrected c) {
     if (model.isEmpty() || !now.isBefore(sunrise)) {

@@ -132,6 +132,16 @@ public final class NightPage {
     if (r == null || plan.now() == null) {
       return "";
     }
+    List<org.rimeward.plan.StationReadings> several = r.stations().stream()
+        .filter(st -> !st.blocks().isEmpty()).toList();
+    if (several.size() > 1) {
+      // Each station corrected its own blocks: say each one's offset and whether it went quiet.
+      return "Re-planned at " + fmt.dayClock(plan.now()) + " from the stations' readings ("
+          + r.file() + "; " + String.join("; ", several.stream().map(st -> "station " + st.id()
+              + " last " + fmt.clock(st.lastAt()) + (st.biasC() != null ? ", air "
+              + fmt.tempDelta(st.biasC()) + " against the forecast" : "") + (st.stale()
+              ? ", NO reading in the last hour" : "")).toList()) + ")";
+    }
     return "Re-planned at " + fmt.dayClock(plan.now()) + " from the station's readings ("
         + r.file() + (r.station() != null ? ", station " + r.station() : "") + "; last reading "
         + fmt.clock(r.lastAt()) + (r.biasC() != null ? "; air " + fmt.tempDelta(r.biasC())

@@ -6,10 +6,12 @@ import java.math.MathContext;
 import java.time.Instant;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.Function;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -23,7 +25,8 @@ import org.rimeward.units.UnitSystem;
  * a variable the rule bound ({@code $name}) and, optionally, an accessor of it. The unit is read
  * from the name's suffix, as everywhere in Rimeward: {@code ...C} a temperature, {@code ...MmH} a
  * rate, {@code ...Ms} a wind speed, {@code ...M3H} a flow, {@code ...M3} a volume, {@code ...Ha}
- * an area, {@code ...Pct} a percentage; {@code ...PerM3} is a ratio per cubic metre. Times show as local clock times in the farm's zone.
+ * an area, {@code ...Pct} a percentage, {@code ...HeightM} a height; {@code ...PerM3} is a ratio
+ * per cubic metre. Times show as local clock times in the farm's zone.
  */
 public final class Explanations {
   private static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z][A-Za-z0-9_]*(?:\\.[A-Za-z][A-Za-z0-9_]*)*)}");
@@ -38,28 +41,76 @@ public final class Explanations {
 
   private Explanations() {}
 
+  /**
+   * A template cut once into its fixed text and its placeholders, with the both-units literals
+   * already chosen: a watch re-plans every few minutes and a region fires tens of thousands of
+   * rules, each of which would otherwise match the same template's patterns again.
+   *
+   * @param texts the fixed text around the placeholders, one more than {@code paths}
+   * @param paths the placeholders, in order
+   */
+  private record Parsed(List<String> texts, List<String> paths) {}
+
+  private static final Map<String, Parsed> PARSED = new ConcurrentHashMap<>();
+
+  private static Parsed parsed(String template, UnitSystem units) {
+    return PARSED.computeIfAbsent(units.name() + '\0' + template, k -> {
+      Matcher lit = LITERAL.matcher(template);
+      StringBuilder both = new StringBuilder();
+      while (lit.find()) {
+        lit.appendReplacement(both, Matcher.quoteReplacement(units == UnitSystem.US
+            ? lit.group(2) : lit.group(1)));
+      }
+      lit.appendTail(both);
+      String text = both.toString();
+      List<String> texts = new ArrayList<>();
+      List<String> paths = new ArrayList<>();
+      Matcher m = PLACEHOLDER.matcher(text);
+      int from = 0;
+      while (m.find()) {
+        texts.add(text.substring(from, m.start()));
+        paths.add(m.group(1));
+        from = m.end();
+      }
+      texts.add(text.substring(from));
+      return new Parsed(List.copyOf(texts), List.copyOf(paths));
+    });
+  }
+
   /** The placeholder names of a template, each resolved against the rule's bound variables. */
   static Map<String, Object> resolve(String template, Function<String, Object> declaration) {
     Map<String, Object> out = new LinkedHashMap<>();
-    Matcher m = PLACEHOLDER.matcher(template);
-    while (m.find()) {
-      String path = m.group(1);
+    for (String path : parsed(template, UnitSystem.METRIC).paths()) {
       if (out.containsKey(path)) {
         continue;
       }
-      String[] parts = path.split("\\.");
-      Object v = declaration.apply(parts[0]);
-      for (int i = 1; i < parts.length && v != null; i++) {
-        v = accessor(v, parts[i]);
+      int dot = path.indexOf('.');
+      Object v = declaration.apply(dot < 0 ? path : path.substring(0, dot));
+      while (dot >= 0 && v != null) {
+        int next = path.indexOf('.', dot + 1);
+        v = accessor(v, path.substring(dot + 1, next < 0 ? path.length() : next));
+        dot = next;
       }
       out.put(path, v);
     }
     return out;
   }
 
+  /** Each fact class's accessors, looked up once by name. */
+  private static final ClassValue<Map<String, Method>> ACCESSORS = new ClassValue<>() {
+    @Override
+    protected Map<String, Method> computeValue(Class<?> type) {
+      return new ConcurrentHashMap<>();
+    }
+  };
+
   private static Object accessor(Object target, String name) {
     try {
-      Method method = target.getClass().getMethod(name);
+      Method method = ACCESSORS.get(target.getClass()).get(name);
+      if (method == null) {
+        method = target.getClass().getMethod(name);
+        ACCESSORS.get(target.getClass()).put(name, method);
+      }
       return method.invoke(target);
     } catch (ReflectiveOperationException e) {
       throw new IllegalStateException("explanation placeholder '" + name + "' is not an accessor of "
@@ -80,28 +131,20 @@ public final class Explanations {
    */
   static String render(String template, Map<String, Object> values, UnitSystem units, ZoneId zone,
       Map<List<Object>, String> formatted) {
-    Matcher lit = LITERAL.matcher(template);
-    StringBuilder both = new StringBuilder();
-    while (lit.find()) {
-      lit.appendReplacement(both, Matcher.quoteReplacement(units == UnitSystem.US ? lit.group(2) : lit.group(1)));
-    }
-    lit.appendTail(both);
-    Matcher m = PLACEHOLDER.matcher(both.toString());
-    StringBuilder sb = new StringBuilder();
-    while (m.find()) {
-      String path = m.group(1);
+    Parsed p = parsed(template, units);
+    StringBuilder sb = new StringBuilder(template.length() + 32);
+    for (int i = 0; i < p.paths().size(); i++) {
+      sb.append(p.texts().get(i));
+      String path = p.paths().get(i);
       String last = path.substring(path.lastIndexOf('.') + 1);
       Object v = values.get(path);
-      String text;
       if (formatted != null && (v instanceof Number || v instanceof Instant || v instanceof Moment)) {
-        text = formatted.computeIfAbsent(List.of(last, v), k -> format(last, v, units, zone));
+        sb.append(formatted.computeIfAbsent(List.of(last, v), k -> format(last, v, units, zone)));
       } else {
-        text = format(last, v, units, zone);
+        sb.append(format(last, v, units, zone));
       }
-      m.appendReplacement(sb, Matcher.quoteReplacement(text));
     }
-    m.appendTail(sb);
-    return sb.toString();
+    return sb.append(p.texts().get(p.paths().size())).toString();
   }
 
   static String format(String name, Object v, UnitSystem units, ZoneId zone) {
@@ -173,6 +216,9 @@ public final class Explanations {
       return Dimension.PERCENT;
     }
     String lower = name.toLowerCase(Locale.ROOT);
+    if (lower.endsWith("heightm")) {
+      return Dimension.LENGTH;
+    }
     if (lower.endsWith("deltac") || lower.endsWith("marginc") || lower.endsWith("protectionc")
         || lower.endsWith("depressionc") || lower.endsWith("offsetc") || lower.endsWith("bandc")) {
       return Dimension.TEMPERATURE_DELTA;

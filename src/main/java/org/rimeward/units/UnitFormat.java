@@ -62,6 +62,11 @@ public final class UnitFormat {
     return Quantities.format(ha, Dimension.AREA, system, 1);
   }
 
+  /** A height to 0.1 m or ft. */
+  public String length(double m) {
+    return Quantities.format(m, Dimension.LENGTH, system, 1);
+  }
+
   /** A wind speed to 0.1 m/s or mph. */
   public String speed(double ms) {
     return Quantities.format(ms, Dimension.SPEED, system, 1);

@@ -8,6 +8,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import java.util.function.Function;
+import java.util.function.ToDoubleFunction;
 import org.rimeward.farm.Block;
 import org.rimeward.farm.Farm;
 import org.rimeward.physics.Wind;
@@ -16,44 +18,76 @@ import org.rimeward.plan.AlarmReading;
 import org.rimeward.plan.BlockPlan;
 import org.rimeward.plan.NightUpdate;
 import org.rimeward.plan.Plan;
+import org.rimeward.plan.Replanner;
 import org.rimeward.units.UnitFormat;
 import org.rimeward.weather.Reading;
 
 /**
- * Which alarms hold at {@code now}, given the re-plan and the latest reading. Numbers in messages
- * are in the user's units; thresholds are the {@link WatchPolicy}'s and the plan's own.
+ * Which alarms hold at {@code now}, given the re-plan and each station's latest reading. A
+ * station's alarms (stale, colder than forecast) are raised for the blocks it stands for: once
+ * for the farm ({@link Alarm#FARM_WIDE}) when it stands for every block, else block by block,
+ * since a block goes stale when its station does. Numbers in messages are in the user's units;
+ * thresholds are the {@link WatchPolicy}'s (from the rule files) and the plan's own.
  */
 public final class AlarmCheck {
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
 
   private AlarmCheck() {}
 
-  public static List<Alarm> check(Plan plan, Farm farm, Optional<Reading> latest, Instant now,
+  /** The alarms of a re-plan, each block judged by the latest reading of its own station. */
+  public static List<Alarm> check(Plan plan, Replanner replanner, Instant now, WatchPolicy p,
+      UnitFormat fmt) {
+    return check(plan, replanner.farm(),
+        id -> replanner.basis(id).flatMap(x -> replanner.latestReading(x.station())),
+        id -> replanner.basis(id).map(Replanner.Basis::coldAirOffsetC).orElse(0.0), now, p, fmt);
+  }
+
+  /**
+   * As if one station at the forecast point stood for every block: {@code latest} is its reading,
+   * and each block's air is that reading plus the block's cold-air offset.
+   */
+  static List<Alarm> check(Plan plan, Farm farm, Optional<Reading> latest, Instant now,
       WatchPolicy p, UnitFormat fmt) {
+    return check(plan, farm, id -> latest,
+        id -> farm.block(id).map(Block::coldAirOffsetC).orElse(0.0), now, p, fmt);
+  }
+
+  private static List<Alarm> check(Plan plan, Farm farm,
+      Function<String, Optional<Reading>> latestFor, ToDoubleFunction<String> offsetFor,
+      Instant now, WatchPolicy p, UnitFormat fmt) {
     ZoneId zone = farm.zone();
     List<Alarm> out = new ArrayList<>();
     NightUpdate.ReadingsSummary r = plan.update().readings();
-    Optional<Instant> last = r.lastAt();
-    if (last.isEmpty() || Duration.between(last.get(), now).compareTo(p.staleAfter()) > 0) {
-      out.add(new Alarm(Alarm.FARM_WIDE, AlarmKind.STALE, 1, now, last.map(t -> "no reading since "
-          + clock(t, zone) + " (" + Duration.between(t, now).toMinutes() + " min)").orElse("no reading"
-          + " yet") + ": the station or its logger may have failed; the plan runs on the forecast"));
+    for (NightUpdate.StationSummary st : r.planning()) {
+      List<String> blocks = st.blocks().size() == farm.blocks().size() ? List.of(Alarm.FARM_WIDE)
+          : st.blocks();
+      String who = st.id().isEmpty() ? "" : "station " + st.id() + ": ";
+      Optional<Instant> last = st.lastAt();
+      if (last.isEmpty() || Duration.between(last.get(), now).compareTo(p.staleAfter()) > 0) {
+        String message = who + last.map(t -> "no reading since " + clock(t, zone) + " ("
+            + Duration.between(t, now).toMinutes() + " min)").orElse("no reading yet")
+            + ": the station or its logger may have failed; the plan runs on the forecast";
+        blocks.forEach(b -> out.add(new Alarm(b, AlarmKind.STALE, 1, now, message)));
+      }
+      if (!Double.isNaN(st.biasC()) && -st.biasC() > p.colderMarginC()) {
+        int level = (int) Math.floor(-st.biasC() / p.colderMarginC());
+        String message = who + "readings " + fmt.tempDelta(-st.biasC())
+            + " colder than forecast over the last hour";
+        blocks.forEach(b -> out.add(new Alarm(b, AlarmKind.COLDER_THAN_FORECAST, level, now,
+            message)));
+      }
     }
-    if (!Double.isNaN(r.biasC()) && -r.biasC() > p.colderMarginC()) {
-      int level = (int) Math.floor(-r.biasC() / p.colderMarginC());
-      out.add(new Alarm(Alarm.FARM_WIDE, AlarmKind.COLDER_THAN_FORECAST, level, now,
-          "readings " + fmt.tempDelta(-r.biasC()) + " colder than forecast over the last hour"));
-    }
-    // The wind rules judge the wind at 10 m, as extension limits are stated; the station's wind is
-    // brought there from its own height through the 2 m wind (FAO-56 Eq. 47), as the plan does.
-    double wind2m = latest.flatMap(x -> x.windMs().isPresent()
-        ? Optional.of(Wind.at2mMs(x.windMs().getAsDouble(), x.windHeightM())) : Optional.empty())
-        .orElse(Double.NaN);
-    double wind10m = wind2m / Wind.at2mMs(1.0, 10.0);
     for (BlockPlan b : plan.blocks()) {
-      Block block = farm.blocks().stream().filter(x -> x.id().equals(b.blockId())).findFirst().orElseThrow();
+      Optional<Reading> latest = latestFor.apply(b.blockId());
+      double offsetC = offsetFor.applyAsDouble(b.blockId());
+      // The wind rules judge the wind at 10 m, as extension limits are stated; the station's wind
+      // is brought there from its own height through the 2 m wind (FAO-56 Eq. 47), as the plan does.
+      double wind2m = latest.flatMap(x -> x.windMs().isPresent()
+          ? Optional.of(Wind.at2mMs(x.windMs().getAsDouble(), x.windHeightM())) : Optional.empty())
+          .orElse(Double.NaN);
+      double wind10m = wind2m / Wind.at2mMs(1.0, 10.0);
       Optional<Action.Sprinkle> s = b.sprinkle().filter(Action.Sprinkle::withWater);
-      alarmTemperature(out, b, block, s, latest, now, zone, fmt);
+      alarmTemperature(out, b, offsetC, s, latest, now, zone, fmt);
       if (s.isPresent()) {
         Instant start = s.get().start();
         Instant stop = s.get().stop();
@@ -85,8 +119,10 @@ public final class AlarmCheck {
    * number the plan told the manager to set the alarm at: before a granted run starts, and on a
    * block the plan gives no run (a near miss, a run advised against or left without water), where
    * the cold coming early is exactly what the manager must hear.
+   *
+   * @param offsetC what to add to the station's reading for the block's air
    */
-  private static void alarmTemperature(List<Alarm> out, BlockPlan b, Block block,
+  private static void alarmTemperature(List<Alarm> out, BlockPlan b, double offsetC,
       Optional<Action.Sprinkle> granted, Optional<Reading> latest, Instant now, ZoneId zone,
       UnitFormat fmt) {
     Optional<AlarmReading> alarm = b.alarm();
@@ -94,7 +130,7 @@ public final class AlarmCheck {
         || granted.isPresent() && !now.isBefore(granted.get().start())) {
       return;
     }
-    double airNow = latest.get().airTempC() + block.coldAirOffsetC();
+    double airNow = latest.get().airTempC() + offsetC;
     if (airNow > alarm.get().alarmAirC()) {
       return;
     }

@@ -1,7 +1,10 @@
 package org.rimeward.watch;
 
+import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.attribute.BasicFileAttributes;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
@@ -25,6 +28,7 @@ import org.rimeward.audit.RunSummary;
 import org.rimeward.audit.WatchAlarm;
 import org.rimeward.plan.Action;
 import org.rimeward.plan.BlockPlan;
+import org.rimeward.plan.NightUpdate;
 import org.rimeward.plan.Plan;
 import org.rimeward.plan.PlanChanges;
 import org.rimeward.plan.Replanner;
@@ -39,7 +43,7 @@ import org.rimeward.weather.ReadingsReader;
  * re-plan that changed a decision, go to the audit trail, whose record of alarms also keeps a
  * restarted watch from raising them again.
  */
-public final class NightWatch {
+public final class NightWatch implements AutoCloseable {
   private static final DateTimeFormatter CLOCK = DateTimeFormatter.ofPattern("HH:mm", Locale.ROOT);
 
   private final Replanner replanner;
@@ -55,9 +59,13 @@ public final class NightWatch {
   private final List<Reading> readings = new ArrayList<>();
   private final List<Readings.Skipped> skipped = new ArrayList<>();
   private final Map<String, Integer> raised = new HashMap<>();
+  /** Undeclared stations already reported: once a watch, not once a pass. */
+  private final Set<String> announced = new HashSet<>();
   private Map<String, String> lastDecisions;
   private String lastRunId;
   private Plan lastPlan;
+  private AuditStore trail;
+  private Object trailKey;
   private boolean trailLoaded;
   private volatile boolean stopping;
   private final CountDownLatch wake = new CountDownLatch(1);
@@ -86,6 +94,7 @@ public final class NightWatch {
     if (batch.restarted()) {
       readings.clear();
       skipped.clear();
+      announced.clear();
     }
     readings.addAll(batch.readings());
     skipped.addAll(batch.skipped());
@@ -95,11 +104,20 @@ public final class NightWatch {
     Readings all = new Readings(readingsFile, readings, skipped);
     byte[] bytes = ReadingsReader.bytes(readingsFile);
     Plan plan = replanner.replan(all, bytes, now, station);
+    for (NightUpdate.StationSummary st : plan.update().readings().stations()) {
+      if (!st.declared() && !replanner.farm().stations().isEmpty() && st.blocks().isEmpty()
+          && announced.add(st.id())) {
+        err.println("rimeward: " + readingsFile.getFileName() + ": " + (st.id().isEmpty()
+            ? "" : "station '" + st.id() + "': ") + st.note());
+        err.flush();
+      }
+    }
     ZoneId zone = replanner.farm().zone();
     Set<String> running = new HashSet<>();
     boolean recorded = false;
     String runId = null;
-    try (AuditStore store = auditDb.map(AuditStore::open).orElse(null)) {
+    AuditStore store = auditDb.map(this::trail).orElse(null);
+    try {
       if (store != null) {
         if (!trailLoaded) {
           for (WatchAlarm a : store.listAlarms(replanner.night())) {
@@ -124,9 +142,7 @@ public final class NightWatch {
         runId = lastRunId;
       }
       List<Alarm> fresh = new ArrayList<>();
-      Optional<Reading> latest = all.of(plan.update().readings().station()).stream()
-          .filter(x -> !x.time().isAfter(now)).reduce((a, b) -> b);
-      for (Alarm a : AlarmCheck.check(plan, replanner.farm(), latest, now, policy, units)) {
+      for (Alarm a : AlarmCheck.check(plan, replanner, now, policy, units)) {
         if (a.kind() == AlarmKind.START_DUE && a.level() > 1 && running.contains(a.blockId())) {
           continue;
         }
@@ -149,9 +165,59 @@ public final class NightWatch {
           }
         }
       }
+      if (store != null && (recorded || !fresh.isEmpty())) {
+        store.checkpoint();
+      }
       lastPlan = plan;
       return new Pass(plan, fresh, recorded);
+    } catch (RuntimeException e) {
+      // The next pass opens the trail afresh rather than trust a connection that failed.
+      closeTrail();
+      throw e;
     }
+  }
+
+  /**
+   * The audit trail, opened on the first pass and kept open through the night: opening it checks
+   * and migrates the schema in a write transaction, which every pass would otherwise repeat. Each
+   * pass still reads the crew's actions from it; a pass that wrote copies its log into the file
+   * (as closing did), so a copy of audit.db alone holds every record; and it is opened again when
+   * the file is no longer the one opened (moved, replaced or deleted), closing the old one first so
+   * that its log is not left for the new file, and nothing is written to a file the farm no longer
+   * keeps.
+   */
+  private AuditStore trail(Path db) {
+    Object key = fileKey(db);
+    if (trail != null && key != null && key.equals(trailKey)) {
+      return trail;
+    }
+    closeTrail();
+    trail = AuditStore.open(db);
+    trailKey = fileKey(db);
+    return trail;
+  }
+
+  private static Object fileKey(Path p) {
+    try {
+      return Files.readAttributes(p, BasicFileAttributes.class).fileKey();
+    } catch (IOException e) {
+      return null;
+    }
+  }
+
+  private void closeTrail() {
+    if (trail != null) {
+      AuditStore t = trail;
+      trail = null;
+      trailKey = null;
+      t.close();
+    }
+  }
+
+  /** Closes the audit trail the passes kept open. */
+  @Override
+  public void close() {
+    closeTrail();
   }
 
   /**

@@ -12,12 +12,9 @@ import org.rimeward.io.BadInputException;
 import org.rimeward.io.CsvTable;
 import org.rimeward.io.Loaded;
 import org.rimeward.io.TextFile;
-import org.rimeward.physics.Psychrometrics;
-import org.rimeward.units.Dimension;
-import org.rimeward.units.Quantities;
 
 /**
- * Reads the night's forecast CSV. The first line names the columns ({@link ForecastColumns});
+ * Reads the night's forecast CSV. The first line names the columns ({@link WeatherColumns});
  * each later line is one time step. Every problem is a {@link BadInputException} naming the file,
  * the line, the column and the value, and what to write instead.
  *
@@ -31,15 +28,12 @@ public final class ForecastReader {
   /** Wind height when no {@code wind_height_m} column is given, m: WMO standard anemometer height. */
   public static final double DEFAULT_WIND_HEIGHT_M = 10.0;
 
-  /** Above this a value in a °C column is taken to be °F: no frost-night air is above 45 °C. */
-  static final double SURELY_F_ABOVE_C = 45.0;
-
   private static final String HEADER_EXAMPLE = "time,air_temp_c,dew_point_c,wind_ms,cloud_pct";
 
   private final CsvTable table;
-  private final ForecastColumns columns;
+  private final WeatherColumns columns;
 
-  private ForecastReader(CsvTable table, ForecastColumns columns) {
+  private ForecastReader(CsvTable table, WeatherColumns columns) {
     this.table = table;
     this.columns = columns;
   }
@@ -65,7 +59,7 @@ public final class ForecastReader {
 
   private static Forecast read(Path csv, TextFile file, ZoneId zone) {
     CsvTable table = CsvTable.read(file, HEADER_EXAMPLE);
-    ForecastColumns columns = ForecastColumns.of(table);
+    WeatherColumns columns = WeatherColumns.forecast(table);
     if (table.rows().isEmpty()) {
       throw BadInputException.at(file.label() + ":" + table.headerLine(), "the file has a header"
           + " but no forecast rows; add one row per time step");
@@ -82,7 +76,8 @@ public final class ForecastReader {
     for (Values v : rows) {
       ForecastTimes.Resolved t;
       try {
-        t = ForecastTimes.resolve(v.row().get("time"), zone, previous);
+        t = ForecastTimes.resolve(v.row().get("time"), zone,
+          previous == null ? null : previous.time());
       } catch (IllegalArgumentException e) {
         throw table.bad(v.row(), "time", e.getMessage());
       }
@@ -109,64 +104,21 @@ public final class ForecastReader {
     if (r.get("time").isEmpty()) {
       throw table.bad(r, "time", "a time is required on every row");
     }
-    double airC = temperature(r, columns.air());
-    double dewC = columns.humidity().equals("rh_pct") ? dewFromRh(r, airC)
+    double airC = WeatherColumns.temperatureC(table, r, columns.air());
+    double dewC = columns.humidity().equals("rh_pct") ? WeatherColumns.dewFromRhC(table, r, airC)
         : dewPoint(r, airC);
-    String windCol = columns.wind();
-    double inUnit = table.number(r, windCol);
-    String unit = ForecastColumns.WIND_UNIT.get(windCol);
-    double windMs = Quantities.toCanonical(inUnit, Dimension.SPEED, unit);
-    if (!(windMs >= 0 && windMs <= ForecastStep.MAX_WIND_MS)) {
-      throw table.bad(r, windCol, String.format(Locale.ROOT, "wind speed must be 0 to %.0f %s"
-          + " (%.0f m/s); check the value and the column's unit", ForecastStep.MAX_WIND_MS
-          / Quantities.toCanonical(1, Dimension.SPEED, unit), unit, ForecastStep.MAX_WIND_MS));
-    }
-    double heightM = DEFAULT_WIND_HEIGHT_M;
-    if (columns.windHeight()) {
-      heightM = table.number(r, "wind_height_m");
-      if (!(heightM > 0 && heightM <= ForecastStep.MAX_WIND_HEIGHT_M)) {
-        throw table.bad(r, "wind_height_m", "the wind height must be above 0 and at most 100 m;"
-            + " give the height of the wind value above ground, e.g. 10 or 2");
-      }
-    }
-    double cloud = table.number(r, "cloud_pct");
-    if (!(cloud >= 0 && cloud <= 100)) {
-      throw table.bad(r, "cloud_pct", "cloud cover must be 0 to 100 %; give it in percent"
-          + " (8 oktas = 100 %)");
-    }
-    OptionalDouble solar = OptionalDouble.empty();
-    if (columns.solar() && !r.get("solar_wm2").isEmpty()) {
-      double s = table.number(r, "solar_wm2");
-      if (!(s >= 0 && s <= ForecastStep.MAX_SOLAR_WM2)) {
-        throw table.bad(r, "solar_wm2", "solar radiation must be 0 to 1400 W/m² (the solar"
-            + " constant is about 1361 W/m²); leave the cell empty if unknown");
-      }
-      solar = OptionalDouble.of(s);
-    }
+    double windMs = WeatherColumns.windMs(table, r, columns.wind());
+    double heightM = columns.windHeight() ? WeatherColumns.windHeightM(table, r)
+        : DEFAULT_WIND_HEIGHT_M;
+    double cloud = WeatherColumns.cloudPct(table, r);
+    OptionalDouble solar = columns.solar() && !r.get("solar_wm2").isEmpty()
+        ? OptionalDouble.of(WeatherColumns.solarWm2(table, r)) : OptionalDouble.empty();
     return new Values(r, airC, dewC, windMs, heightM, cloud, solar);
-  }
-
-  /** A temperature column's value in °C; a °C column holding a °F-sized value is refused. */
-  private double temperature(CsvTable.Row r, String column) {
-    double v = table.number(r, column);
-    double c = column.endsWith("_f") ? Quantities.toCanonical(v, Dimension.TEMPERATURE, "F") : v;
-    if (column.endsWith("_c") && c > SURELY_F_ABOVE_C) {
-      String rename = column.replaceFirst("_c$", "_f");
-      throw table.bad(r, column, "looks like °F; rename the column " + rename
-          + (column.startsWith("air") ? " (or correct the value: no frost night is above "
-              + SURELY_F_ABOVE_C + " °C)" : ""));
-    }
-    if (!(c >= ForecastStep.MIN_TEMP_C && c <= ForecastStep.MAX_TEMP_C)) {
-      throw table.bad(r, column, String.format(Locale.ROOT, "%.1f °C is outside %.0f to %.0f °C;"
-          + " %s", c, ForecastStep.MIN_TEMP_C, ForecastStep.MAX_TEMP_C, column.startsWith("air")
-          ? "check the value and the column's unit" : "the humidity formulas hold from -40 to 45 °C"));
-    }
-    return c;
   }
 
   private double dewPoint(CsvTable.Row r, double airC) {
     String col = columns.humidity();
-    double dewC = temperature(r, col);
+    double dewC = WeatherColumns.temperatureC(table, r, col);
     if (dewC > airC + 1e-9) {
       double by = dewC - airC;
       String rounding = by <= 0.5
@@ -178,19 +130,6 @@ public final class ForecastReader {
           + " air temperature (%.2f °C), which cannot be.%s", dewC, airC, rounding));
     }
     return dewC;
-  }
-
-  private double dewFromRh(CsvTable.Row r, double airC) {
-    double rh = table.number(r, "rh_pct");
-    if (rh > 0 && rh <= 1) {
-      throw table.bad(r, "rh_pct", "looks like a fraction; give relative humidity in percent,"
-          + " 0–100 (0.7 is 70)");
-    }
-    if (!(rh > 0 && rh <= 100)) {
-      throw table.bad(r, "rh_pct", "relative humidity must be above 0 and at most 100 %; give it"
-          + " in percent, 0–100, e.g. 70 (not 0.70)");
-    }
-    return Psychrometrics.dewPointFromRhC(airC, rh);
   }
 
   /**

@@ -13,7 +13,7 @@ import java.util.Locale;
 import java.util.regex.Pattern;
 
 /**
- * Reads a forecast step's time. A time with an offset is taken as written. A local time is placed
+ * Reads the time of a forecast step or a station reading. A time with an offset is taken as written. A local time is placed
  * in the farm's zone: a time in the spring-forward gap does not exist and is refused; a time in
  * the autumn overlap happens twice, and rows in time order settle which: the first occurrence
  * takes the earlier offset, and a repeat that would not come after the previous row takes the
@@ -28,11 +28,12 @@ final class ForecastTimes {
   record Resolved(Instant instant, ZoneOffset offset) {}
 
   /**
-   * Resolves {@code text}; {@code previous} is the step before it, or null.
+   * Resolves {@code text}; {@code previous} is the time of the row before it (of the same
+   * station, for readings), or null.
    *
    * @throws IllegalArgumentException saying why the time cannot be used and what to write
    */
-  static Resolved resolve(String text, ZoneId zone, ForecastStep previous) {
+  static Resolved resolve(String text, ZoneId zone, Instant previous) {
     String t = text;
     if (SPACE_SEPARATED.matcher(t).matches()) {
       t = t.replaceFirst(" ", "T");
@@ -67,7 +68,7 @@ final class ForecastTimes {
     ZoneOffset first = overlap.getOffsetBefore();
     ZoneOffset second = overlap.getOffsetAfter();
     Instant early = ldt.toInstant(first);
-    if (previous != null && !early.isAfter(previous.time())) {
+    if (previous != null && !early.isAfter(previous)) {
       return new Resolved(ldt.toInstant(second), second);
     }
     return new Resolved(early, first);

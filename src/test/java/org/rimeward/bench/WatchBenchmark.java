@@ -98,6 +98,7 @@ public final class WatchBenchmark {
             .toLocalTime(), used / 1e6));
       }
     }
+    watch.close();
     Collections.sort(ms);
     long trail = Files.size(farm.resolve("audit.db"))
         + (Files.exists(farm.resolve("audit.db-wal")) ? Files.size(farm.resolve("audit.db-wal")) : 0);

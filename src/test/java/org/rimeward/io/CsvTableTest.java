@@ -53,6 +53,24 @@ class CsvTableTest {
   }
 
   @Test
+  void aHeaderAloneThenRowsOneAtATimeKeepTheFilesLines() {
+    CsvTable t = CsvTable.header("log.csv", "Time;Air", 3, "time,air");
+    assertThat(t.headerLine()).isEqualTo(3);
+    assertThat(t.delimiter()).isEqualTo(';');
+    CsvTable.Row row = t.row("7;2,5", 9).orElseThrow();
+    assertThat(row.line()).isEqualTo(9);
+    assertThat(t.number(row, "air")).isEqualTo(2.5);
+    assertThat(t.row("# a comment", 10)).isEmpty();
+    assertThat(t.row("   ", 11)).isEmpty();
+    assertThatThrownBy(() -> t.row("8;\"3", 12)).isInstanceOf(BadInputException.class)
+        .hasMessage("log.csv:12: a quote (\") opens here and never closes; close it or remove it");
+    assertThatThrownBy(() -> t.number(t.row("8;x", 13).orElseThrow(), "air"))
+        .hasMessageStartingWith("log.csv:13: column air, value 'x': is not a number");
+    assertThatThrownBy(() -> CsvTable.header("log.csv", "time;;air", 4, "time,air"))
+        .hasMessageStartingWith("log.csv:4: column 2 has no name");
+  }
+
+  @Test
   void hugeCellIsQuotedShort() {
     String cell = "x".repeat(3_000_000);
     CsvTable t = table("a,b\n" + cell + ",1\n");

@@ -99,4 +99,26 @@ class PlanDocumentTest {
     assertThat(text).contains("\"sunset\" : \"2026-04-14T19:44-07:00\"")
         .contains("\"start_margin_c\" : 0.00");
   }
+
+  @Test
+  void aRePlansStationsReadBackAndSoDoThoseOfRunsRecordedBeforeStationsWereDeclared() {
+    Replanner rp = Replanner.load(new PlanRequest(TestFarms.DEMO, null, TestFarms.CROPS,
+        TestFarms.RULES, null), org.rimeward.rules.RuleBook::load);
+    java.nio.file.Path file = TestFarms.DEMO.resolve("station-readings.csv");
+    Plan replanned = rp.replan(org.rimeward.weather.ReadingsReader.read(file, rp.farm().zone()),
+        new byte[0], java.time.OffsetDateTime.parse("2026-04-14T23:00-07:00").toInstant(),
+        java.util.Optional.empty());
+    String text = PlanJson.toText(replanned);
+    PlanDocument back = PlanJson.read(text);
+    assertThat(Json.pretty(back)).isEqualTo(text);
+    StationReadings st = back.readings().stations().get(0);
+    assertThat(st.blocks()).hasSize(plan.blocks().size());
+    assertThat(st.lastAt()).hasToString("2026-04-14T23:00-07:00");
+    // Runs recorded before farm.yaml declared stations wrote their ids alone.
+    String older = text.replaceFirst("(?s)\"stations\" : \\[.*?\\],\n(\\s*)\"station\"",
+        "\"stations\" : [ \"\", \"north\" ],\n$1\"station\"");
+    assertThat(older).isNotEqualTo(text);
+    assertThat(PlanJson.read(older).readings().stations()).extracting(StationReadings::id)
+        .containsExactly("", "north");
+  }
 }

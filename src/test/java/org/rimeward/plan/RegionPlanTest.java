@@ -63,7 +63,8 @@ class RegionPlanTest {
     for (Block b : farm.blocks()) {
       offsets.add(b.coldAirOffsetC());
       BlockFact f = NightPlanner.blockFact(b, crops);
-      BlockNight viaMemo = BlockPhysics.compute(b, f.t10C(), f.t90C(), window, pressureKPa, "f", shared);
+      BlockNight viaMemo = BlockPhysics.compute(b, b.coldAirOffsetC(), f.t10C(), f.t90C(), window,
+          pressureKPa, "f", shared);
       BlockNight alone = BlockPhysics.compute(b, f.t10C(), f.t90C(), window, pressureKPa, "f");
       assertThat(viaMemo).usingRecursiveComparison().ignoringFields("series").isEqualTo(alone);
       assertThat(viaMemo.blockId()).isEqualTo(b.id());
@@ -81,7 +82,8 @@ class RegionPlanTest {
   void sharedProfilesAreTheOnesEachBlockLooksUpAlone() {
     Map<List<String>, org.rimeward.crop.EffectiveProfile> shared = new HashMap<>();
     for (Block b : farm.blocks()) {
-      assertThat(NightPlanner.blockFact(b, crops, shared)).isEqualTo(NightPlanner.blockFact(b, crops));
+      assertThat(NightPlanner.blockFact(b, b.coldAirOffsetC(), crops, shared))
+          .isEqualTo(NightPlanner.blockFact(b, crops));
     }
     assertThat(shared.size()).isLessThan(farm.blocks().size());
   }

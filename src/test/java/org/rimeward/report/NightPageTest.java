@@ -105,6 +105,24 @@ class NightPageTest {
     assertThat(html).doesNotContain("readings to here");
   }
 
+  /** With several stations, each one's offset and silence is in the header. */
+  @Test
+  void aReplanByTwoStationsShowsEach() throws IOException {
+    String json = Files.readString(Path.of("src/test/resources/golden/demo-plan.json"))
+        .replaceFirst("\"farm\" :", "\"now\" : \"2026-04-15T00:30-07:00\", \"readings\" : {"
+            + "\"file\" : \"r.csv\", \"last_at\" : \"2026-04-15T00:25-07:00\", \"bias_c\" : 0.0,"
+            + " \"station\" : \"mast\", \"stale\" : true, \"stations\" : ["
+            + "{\"id\" : \"mast\", \"blocks\" : [\"upper-golden\"], \"last_at\" :"
+            + " \"2026-04-15T00:25-07:00\", \"bias_c\" : 0.0, \"stale\" : false},"
+            + "{\"id\" : \"hollow\", \"blocks\" : [\"hollow-cherry\"], \"last_at\" :"
+            + " \"2026-04-14T23:10-07:00\", \"bias_c\" : -2.0, \"stale\" : true}]},\n  \"farm\" :");
+    String page = NightPage.html(NightPage.of(PlanJson.read(json), UnitFormat.of(UnitSystem.METRIC),
+        PlanDocument.Rule::explanation, Map.of(), null));
+    assertThat(page).contains("Re-planned at Wed 00:30 from the stations&#39; readings (r.csv;"
+        + " station mast last 00:25, air 0.0 °C against the forecast; station hollow last 23:10,"
+        + " air -2.0 °C against the forecast, NO reading in the last hour)");
+  }
+
   @Test
   void thePageFetchesNothing() {
     assertNoExternalFetch(html);

@@ -104,4 +104,41 @@ class ReadingsReaderTest {
         Instant.parse("2026-11-01T08:30:00Z"), Instant.parse("2026-11-01T09:30:00Z"));
     assertThat(r.of("b")).extracting(Reading::time).containsExactly(Instant.parse("2026-11-01T08:30:00Z"));
   }
+
+  @Test
+  void readsAsEveryTableIsReadSemicolonsDecimalCommasAndCommentsWithTheirLines() throws Exception {
+    // A European logger's export: semicolons, decimal commas, a comment line kept by the logger.
+    Path p = write("eu.csv", "# logger 7, firmware 2.1\nTime;Air_Temp_C;RH_Pct\n"
+        + "2026-04-14T22:00-07:00;1,5;80\n# battery swapped\n2026-04-14T22:10-07:00;\u22120,5;85\n");
+    Readings r = ReadingsReader.read(p, ZONE);
+    assertThat(r.skipped()).isEmpty();
+    assertThat(r.readings()).extracting(Reading::airTempC).containsExactly(1.5, -0.5);
+    assertThat(r.readings()).extracting(Reading::line).containsExactly(3, 5);
+  }
+
+  @Test
+  void aStrayQuoteOrAFahrenheitValueCostsOneRowNotTheRowsAfterIt() throws Exception {
+    Path p = write("q.csv", "time,air_temp_c\n"
+        + "2026-04-14T22:00-07:00,\"1.5\n"
+        + "2026-04-14T22:10-07:00,33.8\n"
+        + "2026-04-14T22:20-07:00,49\n"
+        + "2026-04-14T22:30-07:00,1.0\n");
+    Readings r = ReadingsReader.read(p, ZONE);
+    assertThat(r.readings()).extracting(Reading::line).containsExactly(3, 5);
+    assertThat(r.skipped()).extracting(Readings.Skipped::line).containsExactly(2, 4);
+    assertThat(r.skipped().get(0).message()).startsWith(p + ":2: a quote (\") opens here");
+    assertThat(r.skipped().get(1).message()).contains("column air_temp_c, value '49': looks like °F");
+  }
+
+  @Test
+  void pollStartsOverWhenTheHeaderComesLaterThanTheFirstPoll() throws Exception {
+    // A logger that creates the file and writes the header a moment later.
+    Path p = write("late.csv", "");
+    ReadingsReader tail = new ReadingsReader(p, ZONE);
+    assertThat(tail.poll().readings()).isEmpty();
+    Files.writeString(p, "time;air_temp_f\n2026-04-14T22:00-07:00;32\n", StandardOpenOption.APPEND);
+    ReadingsReader.Batch b = tail.poll();
+    assertThat(b.readings()).extracting(Reading::airTempC).containsExactly(0.0);
+    assertThat(b.readings().get(0).line()).isEqualTo(2);
+  }
 }
