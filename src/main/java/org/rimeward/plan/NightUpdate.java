@@ -41,18 +41,23 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
    * @param stale whether no reading falls in the last {@link ReadingsSummary#STALE_AFTER_MIN}
    *     minutes before now
    * @param siteMinimum the site model's minimum beside the forecast's, when it applies
+   * @param points the station's air readings over the planned window up to now, in time order
    */
   public record ReadingsSummary(String file, Optional<Instant> lastAt, double biasC, double dewBiasC,
       List<String> stations, String station, String method, String methodText, int rows,
-      List<String> skipped, boolean stale, Optional<SiteMinimum> siteMinimum) {
+      List<String> skipped, boolean stale, Optional<SiteMinimum> siteMinimum, List<Point> points) {
     /** No reading for this long is stale: the station or its logger has failed (common practice). */
     public static final int STALE_AFTER_MIN = 60;
 
     public ReadingsSummary {
       stations = List.copyOf(stations);
       skipped = List.copyOf(skipped);
+      points = List.copyOf(points);
     }
   }
+
+  /** One reading of the air at the station, °C. */
+  public record Point(Instant at, double airC) {}
 
   /**
    * The site model's minimum beside the forecast's (FAO 2005 ch. 6).

@@ -25,7 +25,9 @@ final class NightUpdateView {
     return new PlanDocument.Readings(r.file(),
         r.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null), nullIfNaN(r.biasC()),
         nullIfNaN(r.dewBiasC()), r.stations(), r.station(), r.method(), r.methodText(), r.rows(),
-        r.skipped().size(), r.skipped().stream().limit(5).toList(), r.stale(), site);
+        r.skipped().size(), r.skipped().stream().limit(5).toList(), r.stale(), site,
+        r.points().stream().map(p -> new PlanDocument.Point(PlanDocuments.time(p.at(), zone), p.airC()))
+            .toList());
   }
 
   static List<PlanDocument.Change> changes(NightUpdate u) {

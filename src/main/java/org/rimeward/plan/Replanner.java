@@ -109,7 +109,10 @@ public final class Replanner {
     NightUpdate.ReadingsSummary summary = new NightUpdate.ReadingsSummary(
         readings.file().getFileName().toString(), c.lastAt(), c.biasC(), c.dewBiasC(), stations, used,
         ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT, readings.readings().size(),
-        readings.skipped().stream().map(Readings.Skipped::message).toList(), stale, site);
+        readings.skipped().stream().map(Readings.Skipped::message).toList(), stale, site,
+        // What the page charts beside the forecast: the readings of the planned window to now.
+        of.stream().filter(r -> !r.time().isBefore(plan.night().forecastStart()) && !r.time().isAfter(now))
+            .map(r -> new NightUpdate.Point(r.time(), r.airTempC())).toList());
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
   }
 
