@@ -4,14 +4,18 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.nio.charset.StandardCharsets;
 import java.time.ZoneId;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.Function;
 import org.rimeward.io.Json;
 import org.rimeward.plan.PlanCsv;
 import org.rimeward.plan.PlanDocument;
 import org.rimeward.plan.PlanJson;
 import org.rimeward.plan.PlanText;
+import org.rimeward.plan.RecordedExplanations;
+import org.rimeward.rules.RuleTemplates;
 import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
 
@@ -68,9 +72,20 @@ public final class RunReport {
         (block, method) -> CrewReport.doneTimes(block, method, actions, zone));
   }
 
+  /**
+   * Each recorded rule's explanation in {@code units}, from the templates in the run's own rule
+   * files and the values it recorded (see {@link RecordedExplanations}).
+   */
+  public static Function<PlanDocument.Rule, String> explainer(RunRecord run, UnitSystem units) {
+    List<String> ruleFiles = run.inputs().stream().filter(i -> i.kind() == InputKind.RULE)
+        .map(i -> new String(i.content(), StandardCharsets.UTF_8)).toList();
+    return RecordedExplanations.of(RuleTemplates.read(ruleFiles), units, ZoneId.of(run.zoneId()));
+  }
+
   /** A readable summary: the night, each block's decision and actions, rules, cautions, inputs. */
   public static String text(RunRecord run, UnitSystem units) {
     PlanDocument plan = plan(run);
+    Function<PlanDocument.Rule, String> words = explainer(run, units);
     UnitFormat fmt = UnitFormat.of(units);
     ZoneId zone = ZoneId.of(run.zoneId());
     StringBuilder s = new StringBuilder();
@@ -103,7 +118,9 @@ public final class RunReport {
       for (PlanDocument.Action a : b.actions()) {
         s.append("  ").append(PlanText.action(a, fmt)).append('\n');
       }
-      for (String c : b.cautions()) {
+      List<String> cautions = b.cautionRules().isEmpty() ? b.cautions()
+          : b.cautionRules().stream().map(words).toList();
+      for (String c : cautions) {
         s.append("  caution: ").append(c).append('\n');
       }
       List<RecordedRule> fired = run.block(b.block()).map(RecordedBlock::rules).orElse(List.of());
@@ -111,7 +128,8 @@ public final class RunReport {
         s.append("  rules fired, in order:\n");
         for (RecordedRule r : fired) {
           s.append("    ").append(r.seq()).append(". ").append(r.ruleId()).append(": ")
-              .append(r.explanation()).append('\n');
+              .append(words.apply(new PlanDocument.Rule(r.seq(), r.ruleId(), "", r.explanation(),
+                  parseOrText(r.factsJson())))).append('\n');
         }
       }
     }
@@ -130,7 +148,7 @@ public final class RunReport {
       s.append("\nFarm-wide rules, in order\n");
       for (PlanDocument.Rule r : plan.farmRules()) {
         s.append("    ").append(r.seq()).append(". ").append(r.id()).append(": ")
-            .append(r.explanation()).append('\n');
+            .append(words.apply(r)).append('\n');
       }
     }
     List<String> cautions = run.cautions();

@@ -17,13 +17,14 @@ import org.rimeward.rules.facts.Status;
  * @param sprinkling what the night asks of the block's sprinklers; empty without sprinklers
  * @param alarm the start and alarm readings; empty when the block has no sprinkling to start
  * @param series the block's night step by step, as the physics computed it
+ * @param coldAirOffsetC the farm file's offset of the block's air from the forecast's
  */
 public record BlockPlan(String blockId, String crop, String variety, String stage,
     String stageName, double t10C, double t90C, String thresholdSource, double targetC,
     double minAirC, double minBudC, double minWetBulbC, Instant coldestAt, int coldestLine,
     RiskLevel risk, double killPctUnprotected, Status status, List<Action> actions,
     Optional<Sprinkling> sprinkling, Optional<AlarmReading> alarm,
-    List<FiredRule> cautions, List<FiredRule> rules, NightSeries series) {
+    List<FiredRule> cautions, List<FiredRule> rules, NightSeries series, double coldAirOffsetC) {
   public BlockPlan {
     actions = List.copyOf(actions);
     cautions = List.copyOf(cautions);

@@ -44,13 +44,16 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
    *     {@code staleAfterMin} minutes before now
    * @param staleAfterMin the rule files' stale limit (rule THRESHOLDS)
    * @param siteMinimum the site model's minimum beside the forecast's, when it applies
+   * @param points the station's air readings over the planned window up to now, in time order
    */
   public record ReadingsSummary(String file, Optional<Instant> lastAt, double biasC, double dewBiasC,
       List<StationSummary> stations, String station, String method, String methodText, int rows,
-      List<String> skipped, boolean stale, int staleAfterMin, Optional<SiteMinimum> siteMinimum) {
+      List<String> skipped, boolean stale, int staleAfterMin, Optional<SiteMinimum> siteMinimum,
+      List<Point> points) {
     public ReadingsSummary {
       stations = List.copyOf(stations);
       skipped = List.copyOf(skipped);
+      points = List.copyOf(points);
     }
 
     /** The station whose readings corrected {@code blockId}'s forecast, if any did. */
@@ -90,6 +93,9 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
       Objects.requireNonNull(note, "note");
     }
   }
+
+  /** One reading of the air at the station, °C. */
+  public record Point(Instant at, double airC) {}
 
   /**
    * The site model's minimum beside the forecast's (FAO 2005 ch. 6).

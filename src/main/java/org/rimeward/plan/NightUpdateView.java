@@ -31,7 +31,8 @@ final class NightUpdateView {
         r.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null), nullIfNaN(r.biasC()),
         nullIfNaN(r.dewBiasC()), stations, r.station(), r.method(), r.methodText(), r.rows(),
         r.skipped().size(), r.skipped().stream().limit(5).toList(), r.stale(), r.staleAfterMin(),
-        site);
+        site, r.points().stream().map(p -> new PlanDocument.Point(PlanDocuments.time(p.at(), zone),
+            p.airC())).toList());
   }
 
   static List<PlanDocument.Change> changes(NightUpdate u) {

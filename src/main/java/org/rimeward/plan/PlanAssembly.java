@@ -110,7 +110,7 @@ final class PlanAssembly {
               () -> new IllegalStateException("no status rule fired for block " + id
                   + "; every block needs one STATUS rule")),
           actions, sprinkling, alarm, rules.stream().filter(FiredRule::isCaution).toList(), rules,
-          bn.series()));
+          bn.series(), bf.coldAirOffsetC()));
     }
     blocks.sort(Comparator.comparing((BlockPlan p) -> p.firstAction().orElse(Instant.MAX))
         .thenComparing(BlockPlan::blockId));

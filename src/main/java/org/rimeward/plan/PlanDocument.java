@@ -68,6 +68,7 @@ public record PlanDocument(
    *
    * @param biasC observed − forecast air over the last hour, null when no reading fell in it
    * @param stale no reading in the last hour
+   * @param points the planned-by station's air readings from the first forecast step to now
    */
   public record Readings(
       String file,
@@ -83,12 +84,17 @@ public record PlanDocument(
       List<String> skipped,
       boolean stale,
       Integer staleAfterMin,
-      SiteMinimum siteMinimum) {
+      SiteMinimum siteMinimum,
+      @JsonInclude(JsonInclude.Include.NON_EMPTY) List<Point> points) {
     public Readings {
       stations = stations == null ? List.of() : List.copyOf(stations);
       skipped = skipped == null ? List.of() : List.copyOf(skipped);
+      points = points == null ? List.of() : List.copyOf(points);
     }
   }
+
+  /** One station reading of the air. */
+  public record Point(OffsetDateTime at, @JsonSerialize(using = Decimals.Two.class) double airC) {}
 
   /** The site model's minimum beside the corrected forecast's (FAO 2005 ch. 6). */
   public record SiteMinimum(
@@ -164,7 +170,10 @@ public record PlanDocument(
    * @param startAirC the air temperature at which sprinkling starts, at the dew point forecast for
    *     its hour; with {@code startWetBulbC}, {@code alarmAirC} (a margin above it) and
    *     {@code alarmAt} (when the forecast air reaches the alarm; absent if it never does), for
-   *     blocks that start sprinkling and near misses with sprinklers
+   *     blocks that start sprinkling and near misses with sprinklers; a block granted no water
+   *     (short water, or sprinkling not advised) has no alarm: its sprinklers stay off
+   * @param coldAirOffsetC the farm file's offset of the block's air from the forecast's; a
+   *     station reading plus this is the air at the block
    * @param cautions the explanations of the cautions that fired for the block
    * @param series the night step by step at the block; only for blocks at risk
    */
@@ -194,6 +203,7 @@ public record PlanDocument(
       @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double startWetBulbC,
       @JsonInclude(JsonInclude.Include.NON_NULL) @JsonSerialize(using = Decimals.Two.class) Double alarmAirC,
       @JsonInclude(JsonInclude.Include.NON_NULL) OffsetDateTime alarmAt,
+      @JsonSerialize(using = Decimals.Two.class) double coldAirOffsetC,
       List<Action> actions,
       List<String> cautions,
       List<Rule> rules,
@@ -247,7 +257,8 @@ public record PlanDocument(
   /**
    * Over-plant sprinkling, as its source can carry it.
    *
-   * @param start null, like {@code stop}, when the block gets no water
+   * @param start null, like {@code stop}, when the block gets no water (short water, or
+   *     sprinkling not advised): no time a crew could read as "sprinkle"
    * @param designRateMmH the sprinklers' installed design rate
    * @param installedRateMmH the rate it runs at tonight: the design rate, or lower when short
    * @param flowM3H the granted draw; {@code waterM3} the granted water; {@code areaHa} protected
@@ -256,7 +267,7 @@ public record PlanDocument(
    * @param grant {@code full}, {@code reduced-rate}, {@code sets}, {@code part-area}, {@code none}
    * @param sets the irrigation sets that run, when only some do
    * @param advised false when the rules advise against sprinkling tonight (wind, a rate short of
-   *     the need): the run it would be, with its times, for the manager to weigh
+   *     the need): the need and rates are kept for the manager to weigh, not the times
    */
   public record Sprinkle(
       OffsetDateTime start,
@@ -280,8 +291,8 @@ public record PlanDocument(
     }
 
     /**
-     * Whether sprinkling is advised; a run that is not advised is shown with its times so the
-     * manager can weigh it, and is granted no water. Records written before the key read as advised.
+     * Whether sprinkling is advised; a run that is not advised is granted no water. Records
+     * written before the key read as advised.
      */
     @JsonIgnore
     public boolean isAdvised() {
@@ -386,6 +397,8 @@ public record PlanDocument(
    * @param past it was due before the forecast starts
    * @param flowM3H for a pump going on, the most it draws until it goes off
    * @param until for {@code not-covered}, when the forecast starts
+   * @param airC for an {@code alarm}, the air temperature it is set at; only blocks that sprinkle
+   *     with water tonight, or near misses with sprinklers, have one
    */
   @JsonInclude(JsonInclude.Include.NON_NULL)
   public record TimelineEntry(
@@ -396,9 +409,10 @@ public record PlanDocument(
       String source,
       boolean past,
       @JsonSerialize(using = Decimals.One.class) Double flowM3H,
-      OffsetDateTime until) {
+      OffsetDateTime until,
+      @JsonSerialize(using = Decimals.Two.class) Double airC) {
     TimelineEntry withWhat(String words) {
-      return new TimelineEntry(at, event, words, block, source, past, flowM3H, until);
+      return new TimelineEntry(at, event, words, block, source, past, flowM3H, until, airC);
     }
   }
 

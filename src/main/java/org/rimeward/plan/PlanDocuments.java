@@ -16,6 +16,7 @@ import org.rimeward.rules.FiredRule;
 import org.rimeward.rules.facts.Measure;
 import org.rimeward.rules.facts.Moment;
 import org.rimeward.rules.facts.NightSeries;
+import org.rimeward.water.Stake;
 
 /**
  * Makes the {@link PlanDocument} of a plan: times in the farm's zone to the minute, enums as
@@ -89,12 +90,14 @@ public final class PlanDocuments {
   }
 
   private static PlanDocument.Block block(BlockPlan b, ZoneId zone) {
+    java.util.Optional<AlarmReading> alarm = b.sprinkle().filter(s -> !s.withWater()).isPresent()
+        ? java.util.Optional.empty() : b.alarm();
     List<PlanDocument.Action> actions = new ArrayList<>();
     for (Action a : b.actions()) {
       if (a instanceof Action.Sprinkle s) {
-        // No water, no times: a crew must not read a start and stop as "sprinkle". A run that is
-        // not advised keeps its times beside advised: false, for the manager to weigh.
-        boolean times = s.withWater() || !s.advised();
+        // No water, no times: a crew must not read a start and stop as "sprinkle". That holds for
+        // a run that is not advised too: its need and rates are kept for the manager to weigh.
+        boolean times = s.withWater();
         actions.add(new PlanDocument.Sprinkle(
             times ? time(s.start(), zone) : null,
             times ? time(s.stop(), zone) : null,
@@ -144,8 +147,10 @@ public final class PlanDocuments {
             .map(sp -> sp.notAdvised().stream().map(Sprinkling.Reason::word).toList()).orElse(null),
         b.alarm().map(AlarmReading::startAirC).orElse(null),
         b.alarm().map(AlarmReading::startWetBulbC).orElse(null),
-        b.alarm().map(AlarmReading::alarmAirC).orElse(null),
-        b.alarm().map(a -> time(a.alarmAt(), zone)).orElse(null),
+        // No alarm for sprinklers that stay off: it would read as "get ready to sprinkle".
+        alarm.map(AlarmReading::alarmAirC).orElse(null),
+        alarm.map(a -> time(a.alarmAt(), zone)).orElse(null),
+        b.coldAirOffsetC(),
         actions,
         b.cautions().stream().map(FiredRule::explanation).toList(),
         b.rules().stream().map(r -> rule(r, zone)).toList(),
@@ -188,6 +193,13 @@ public final class PlanDocuments {
     }
     if (v instanceof Instant t) {
       return f.textNode(Json.time(time(t, zone)));
+    }
+    if (v instanceof Stake st) {
+      // Six significant figures: hectares saved per m³ are thousandths, which three decimals lose.
+      ObjectNode o = f.objectNode();
+      o.put("per_m3", new java.math.BigDecimal(st.perM3()).round(new java.math.MathContext(6)).doubleValue());
+      o.put("by_value", st.byValue());
+      return o;
     }
     if (v instanceof Integer || v instanceof Long) {
       return f.numberNode(((Number) v).longValue());

@@ -163,15 +163,16 @@ public final class PlanText {
           if (s.isAdvised()) {
             sprinkleRow(r, s, fmt, plan.now());
           } else {
-            r[4] = "NOT ADVISED: sprinkle " + fmt.rate(s.designRateMmH()) + " from " + s.source()
-                + notAdvised(b, fmt);
-            r[5] = NightUpdateView.when(s.start(), plan.now(), fmt);
-            r[6] = NightUpdateView.when(s.stop(), plan.now(), fmt);
+            // No start or stop: a crew must not read this row as "sprinkle".
+            r[4] = "NOT ADVISED, keep sprinklers off (" + fmt.rate(s.designRateMmH()) + " from "
+                + s.source() + ")" + notAdvised(b, fmt);
           }
           blockRows.add(r);
         }
       }
-      if (b.alarmAirC() != null) {
+      // Sprinklers that stay off get no alarm (recorded runs from before it was left out of the
+      // document have one; it is not shown).
+      if (b.alarmAirC() != null && b.sprinkle().map(PlanDocument.Sprinkle::waterGranted).orElse(true)) {
         blockRows.add(row("alarm at " + fmt.temp(b.alarmAirC()) + " air; start at "
             + fmt.temp(b.startAirC()) + " air (wet bulb " + fmt.temp(b.startWetBulbC()) + ")",
             b.alarmAt() == null ? "" : NightUpdateView.when(b.alarmAt(), plan.now(), fmt), "", "", ""));
@@ -301,6 +302,10 @@ public final class PlanText {
           + fmt.clock(c.deployBy()) + ", remove at " + fmt.clock(c.remove());
     }
     PlanDocument.Sprinkle s = (PlanDocument.Sprinkle) a;
+    if (!s.isAdvised()) {
+      return "sprinklers off: sprinkling not advised (" + fmt.rate(s.requiredRateMmH())
+          + " needed, " + fmt.rate(s.designRateMmH()) + " installed, from " + s.source() + ")";
+    }
     if (!s.waterGranted()) {
       return "sprinklers off: no water from " + s.source() + " (" + fmt.rate(s.requiredRateMmH())
           + " needed)";

@@ -120,6 +120,7 @@ public final class Replanner {
     List<NightUpdate.StationSummary> stations = new ArrayList<>();
     Forecast nightForecast = forecast;
     ForecastCorrection.Corrected main = null;
+    List<Reading> mainReadings = List.of();
     Optional<NightUpdate.SiteMinimum> site = Optional.empty();
     boolean anyStale = false;
     Map<String, Reading> latest = new HashMap<>();
@@ -141,6 +142,7 @@ public final class Replanner {
       stations.add(summary(src, own, stale));
       if (src.id().equals(split.main())) {
         main = own;
+        mainReadings = src.readings();
         nightForecast = own.forecast();
       }
       if (src.blocks().isEmpty()) {
@@ -182,7 +184,12 @@ public final class Replanner {
         readings.file().getFileName().toString(), main.lastAt(), main.biasC(), main.dewBiasC(),
         stations, split.main(), ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT,
         readings.readings().size(), readings.skipped().stream().map(Readings.Skipped::message)
-            .toList(), anyStale, thresholds.staleAfterMin(), site);
+            .toList(), anyStale, thresholds.staleAfterMin(), site,
+        // What the page charts beside the forecast: the main station's readings of the planned
+        // window up to now.
+        mainReadings.stream().filter(r -> !r.time().isBefore(plan.night().forecastStart())
+            && !r.time().isAfter(now)).map(r -> new NightUpdate.Point(r.time(), r.airTempC()))
+            .toList());
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
   }
 

@@ -34,7 +34,12 @@ final class NightCharts {
 
   private NightCharts() {}
 
-  static String block(PlanDocument.Block b, UnitFormat fmt, ZoneId zone, OffsetDateTime now) {
+  /**
+   * One block's chart; {@code readings} are the station's air readings of a re-plan (empty at
+   * dusk), drawn as points at the block: the reading plus the block's cold-air offset.
+   */
+  static String block(PlanDocument.Block b, UnitFormat fmt, ZoneId zone, OffsetDateTime now,
+      List<PlanDocument.Point> readings) {
     XYSeries air = new XYSeries("forecast air");
     XYSeries bud = new XYSeries("bud, estimated (dry)");
     XYSeries wet = new XYSeries("wet bulb");
@@ -48,6 +53,17 @@ final class NightCharts {
       lo = Math.min(lo, Math.min(s.budC(), s.wetBulbC()));
       hi = Math.max(hi, s.airC());
     }
+    XYSeries read = new XYSeries("readings (station + block offset)");
+    long first = b.series().isEmpty() ? Long.MIN_VALUE : millis(b.series().get(0).at());
+    for (PlanDocument.Point p : readings) {
+      if (millis(p.at()) < first) {
+        continue;
+      }
+      double atBlockC = p.airC() + b.coldAirOffsetC();
+      read.add(millis(p.at()), fmt.tempValue(atBlockC));
+      lo = Math.min(lo, atBlockC);
+      hi = Math.max(hi, atBlockC);
+    }
     XYSeriesCollection data = new XYSeriesCollection();
     data.addSeries(air);
     data.addSeries(bud);
@@ -56,6 +72,14 @@ final class NightCharts {
     style(lines, 0, ChartSvg.INK, ChartSvg.SOLID);
     style(lines, 1, ChartSvg.BLUE, ChartSvg.DASHED);
     style(lines, 2, ChartSvg.VERMILLION, ChartSvg.DOTTED);
+    if (!readings.isEmpty()) {
+      // Points, not a line: each is a thermometer's reading, the curves are estimates.
+      data.addSeries(read);
+      lines.setSeriesLinesVisible(3, false);
+      lines.setSeriesShapesVisible(3, true);
+      lines.setSeriesShape(3, new java.awt.geom.Ellipse2D.Double(-3, -3, 6, 6));
+      lines.setSeriesPaint(3, ChartSvg.GREEN);
+    }
     NumberAxis y = new NumberAxis("temperature (" + fmt.symbol(Dimension.TEMPERATURE) + ")");
     y.setLabelFont(ChartSvg.LABEL);
     y.setRange(fmt.tempValue(lo) - 1.5, fmt.tempValue(hi) + 1.0);

@@ -9,6 +9,7 @@ import java.util.function.Function;
 import org.rimeward.plan.PlanDocument;
 import org.rimeward.plan.PlanText;
 import org.rimeward.plan.StandingCautions;
+import org.rimeward.plan.Timeline;
 import org.rimeward.units.UnitFormat;
 
 /**
@@ -31,10 +32,14 @@ public final class NightPage {
   /** The page. */
   public record Model(String title, String farm, String night, String zone, String sunset,
       String sunrise, String coldest, String readings, String units, List<String> cautions,
-      List<BlockView> atRisk,
+      List<TimelineRow> timeline, List<BlockView> atRisk,
       List<BlockView> quiet, List<WaterView> water, Footer footer) {
     public boolean hasFooter() {
       return footer != null;
+    }
+
+    public boolean hasTimeline() {
+      return !timeline.isEmpty();
     }
 
     public boolean hasQuiet() {
@@ -63,6 +68,12 @@ public final class NightPage {
       return rules.size();
     }
   }
+
+  /**
+   * One moment of the night at a glance: its clock time (marked when it was due before the
+   * forecast starts or the re-plan was made), the block or water source, and what to do.
+   */
+  public record TimelineRow(String at, String who, String what, boolean past, String event) {}
 
   /** One rule that fired, in words with its numbers. */
   public record RuleView(String id, String kind, String words) {}
@@ -104,7 +115,8 @@ public final class NightPage {
           b.actions().stream().map(a -> PlanText.action(a, fmt)).toList(),
           b.sprinkle().filter(s -> s.waterGranted() && s.start() != null)
               .map(s -> fmt.clock(s.start())).orElse(""),
-          chart ? NightCharts.block(b, fmt, zone, plan.now()) : "",
+          chart ? NightCharts.block(b, fmt, zone, plan.now(),
+              plan.readings() == null ? List.of() : plan.readings().points()) : "",
           b.rules().stream().map(r -> new RuleView(r.id(), r.kind(), words.apply(r))).toList(),
           b.cautionRules().stream().map(words).toList(),
           done.getOrDefault(b.block(), List.of()));
@@ -122,8 +134,20 @@ public final class NightPage {
     return new Model("Frost plan: " + plan.farm() + ", night of " + n.date(), plan.farm(),
         n.date().toString(), n.zone(), fmt.dayClock(n.sunset()), fmt.dayClock(n.sunrise()),
         fmt.temp(n.minAirC()) + " at " + fmt.dayClock(n.coldestAt()), readings(plan, fmt),
-        fmt.symbol(org.rimeward.units.Dimension.TEMPERATURE), cautions, atRisk, quiet, water,
-        footer);
+        fmt.symbol(org.rimeward.units.Dimension.TEMPERATURE), cautions, timeline(plan, fmt),
+        atRisk, quiet, water, footer);
+  }
+
+  /** The plan's timeline in the page's units, as the text plan gives it first. */
+  static List<TimelineRow> timeline(PlanDocument plan, UnitFormat fmt) {
+    List<String> words = Timeline.words(plan, fmt);
+    List<TimelineRow> rows = new ArrayList<>();
+    for (int i = 0; i < plan.timeline().size(); i++) {
+      PlanDocument.TimelineEntry e = plan.timeline().get(i);
+      rows.add(new TimelineRow(fmt.clock(e.at()), e.block() != null ? e.block()
+          : e.source() != null ? e.source() : "", words.get(i), e.past(), e.event()));
+    }
+    return rows;
   }
 
   /** A re-plan's readings in one line; empty for a plan made at dusk. */

@@ -44,7 +44,7 @@ public final class RecordedPages {
         run.toolVersion(), inputs, head.seq(), head.hash(),
         fmt.stamp(now.atZone(zone).toOffsetDateTime()) + " " + zone.getId());
     return NightPage.html(NightPage.of(RunReport.plan(run), fmt,
-        org.rimeward.plan.PlanDocument.Rule::explanation, doneWords(actions, fmt, zone), footer));
+        RunReport.explainer(run, fmt.system()), doneWords(actions, fmt, zone), footer));
   }
 
   /** What the crew recorded, per block, in words with local times, marked by who did it. */

@@ -18,7 +18,9 @@ import java.util.regex.Pattern;
 import org.rimeward.rules.facts.Moment;
 import org.rimeward.units.Dimension;
 import org.rimeward.units.Quantities;
+import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
+import org.rimeward.water.Stake;
 
 /**
  * Renders a rule's explanation template. A placeholder {@code {name}} or {@code {name.part}} names
@@ -36,8 +38,9 @@ public final class Explanations {
    * a source, shown in the reader's units, never converted (a source's "10 mph" stays 10 mph).
    */
   private static final Pattern LITERAL = Pattern.compile("\\{~([^|{}]*)\\|([^{}]*)}");
-  /** Cubic metres in 1,000 US gallons (NIST SP 811: 1 gal = 3.785411784 L). */
-  private static final double M3_PER_1000_GAL = 3.785411784;
+  /** Cubic metres in 1,000 US gallons, from the one unit table (NIST SP 811: 1 gal = 3.785411784 L). */
+  private static final double M3_PER_1000_GAL =
+      1000 / Quantities.display(1.0, Dimension.VOLUME, UnitSystem.US);
 
   private Explanations() {}
 
@@ -166,11 +169,7 @@ public final class Explanations {
         return "more than any sprinkler can give";
       }
       if (name.endsWith("PerM3")) {
-        // A stake per unit of water (crop value or hectares saved), not a volume: such ratios span
-        // orders of magnitude, so three significant figures, not a fixed number of decimals.
-        double shown = units == UnitSystem.US ? d * M3_PER_1000_GAL : d;
-        return new BigDecimal(shown).round(new MathContext(3)).stripTrailingZeros().toPlainString()
-            + (units == UnitSystem.US ? " per 1,000 gal" : " per m³");
+        return perWater(d, units);
       }
       Dimension dim = dimensionOf(name);
       if (dim == null) {
@@ -187,13 +186,37 @@ public final class Explanations {
       }
       return Quantities.format(d, dim, units, decimals);
     }
+    if (v instanceof Stake s) {
+      // Hectares of buds saved per m³ is an area per volume: acres per 1,000 gal in US units.
+      if (s.byValue()) {
+        return "crop value saved " + perWater(s.perM3(), units);
+      }
+      String[] perUnit = perWater(Quantities.display(s.perM3(), Dimension.AREA, units), units)
+          .split(" ", 2);
+      return perUnit[0] + " " + Quantities.symbol(Dimension.AREA, units) + " of buds saved "
+          + perUnit[1];
+    }
     if (v instanceof Boolean b) {
       return b ? "yes" : "no";
+    }
+    if (v instanceof String text) {
+      // A source note may quote a figure in both systems: the reader's alone in US units.
+      return UnitFormat.of(units).quoted(text);
     }
     if (v instanceof Enum<?> e) {
       return e.name().toLowerCase(Locale.ROOT).replace('_', '-');
     }
     return v.toString();
+  }
+
+  /**
+   * A stake per unit of water (crop value or hectares saved), not a volume: such ratios span
+   * orders of magnitude, so three significant figures, not a fixed number of decimals.
+   */
+  private static String perWater(double perM3, UnitSystem units) {
+    double shown = units == UnitSystem.US ? perM3 * M3_PER_1000_GAL : perM3;
+    return new BigDecimal(shown).round(new MathContext(3)).stripTrailingZeros().toPlainString()
+        + (units == UnitSystem.US ? " per 1,000 gal" : " per m³");
   }
 
   static Dimension dimensionOf(String name) {

@@ -3,6 +3,7 @@ package org.rimeward.units;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeFormatter;
 import java.util.Locale;
+import java.util.regex.Pattern;
 
 /**
  * How Rimeward shows numbers and times to a person in one unit system: the one place that says
@@ -17,6 +18,16 @@ public final class UnitFormat {
       DateTimeFormatter.ofPattern("EEE HH:mm", Locale.ENGLISH);
   private static final DateTimeFormatter STAMP =
       DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm:ss", Locale.ROOT);
+
+  private static final String NUMBER = "[-+−]?\\d[\\d,]*(?:\\.\\d+)?";
+  private static final String METRIC_UNIT = "(?:°C|g/m²|g/m2|m³/h|m3/h|m³|m3|m/s|mm/h|ha)";
+  private static final String US_UNIT = "(?:°F|oz/yd²|oz/yd2|gpm|gal|mph|in/h|ac)";
+  /** {@code -1.1 °C (30.0 °F)}: a metric figure with its US one beside it. */
+  private static final Pattern METRIC_THEN_US = Pattern.compile(
+      NUMBER + " ?" + METRIC_UNIT + " \\((" + NUMBER + " ?" + US_UNIT + ")\\)");
+  /** {@code 5.0 °F (2.78 °C)}: a US figure with its metric one beside it. */
+  private static final Pattern US_THEN_METRIC = Pattern.compile(
+      "(" + NUMBER + " ?" + US_UNIT + ") \\(" + NUMBER + " ?" + METRIC_UNIT + "\\)");
 
   private final UnitSystem system;
 
@@ -90,6 +101,20 @@ public final class UnitFormat {
   /** The display symbol of a dimension: {@code °C}, {@code gpm}. */
   public String symbol(Dimension dim) {
     return Quantities.symbol(dim, system);
+  }
+
+  /**
+   * A text that quotes figures in both systems, {@code -1.1 °C (30.0 °F)} or {@code 5.0 °F
+   * (2.78 °C)} (a source note, a crop table's tolerance), for this system's reader: in US units
+   * the US figure alone, so no metric unit is left; metric text stays as written, the source's
+   * own figure beside ours.
+   */
+  public String quoted(String text) {
+    if (system != UnitSystem.US || text == null) {
+      return text;
+    }
+    String us = METRIC_THEN_US.matcher(text).replaceAll("$1");
+    return US_THEN_METRIC.matcher(us).replaceAll("$1");
   }
 
   /** A local clock time, {@code 00:46}; {@code ?} when there is none. */

@@ -11,11 +11,12 @@ import java.util.List;
  * @param volumeM3 the water over its run
  * @param setIds the irrigation sets that run, for {@link GrantKind#SETS}
  * @param stakePerM3 the loss avoided per m³ of the least water that protects it, which ranked it
+ * @param stakeByValue the loss is crop value; false: hectares of buds
  * @param spareFlowM3H the flow the source still had, while this block would run, when its turn came
  * @param spareVolumeM3 the volume the source still held when its turn came; NaN for no limit
  */
 public record Grant(String blockId, GrantKind kind, double rateMmH, double areaHa,
-    double flowM3H, double volumeM3, List<String> setIds, double stakePerM3,
+    double flowM3H, double volumeM3, List<String> setIds, double stakePerM3, boolean stakeByValue,
     double floorRateMmH, double floorFlowM3H, double wantedFlowM3H, double wantedVolumeM3,
     double spareFlowM3H, double spareVolumeM3) {
   public Grant {
@@ -24,6 +25,11 @@ public record Grant(String blockId, GrantKind kind, double rateMmH, double areaH
 
   public boolean granted() {
     return kind != GrantKind.NONE;
+  }
+
+  /** The loss avoided per m³, with its basis. */
+  public Stake stake() {
+    return new Stake(stakePerM3, stakeByValue);
   }
 
   /** The sets that run, in words. */

@@ -180,7 +180,7 @@ public final class WaterAllocation {
   private static Grant grant(Demand d, GrantKind kind, double rate, double area, double flow,
       List<String> sets, boolean byValue, Terms terms, double spareFlow, double spareVolume) {
     return new Grant(d.blockId(), kind, rate, area, flow, flow * d.hours(), sets,
-        stakePerM3(d, byValue, terms), d.floorRateMmH(terms), d.floorFlowM3H(terms),
+        stakePerM3(d, byValue, terms), byValue, d.floorRateMmH(terms), d.floorFlowM3H(terms),
         d.fullFlowM3H(), d.fullVolumeM3(), Math.max(0, spareFlow), spareVolume);
   }
 

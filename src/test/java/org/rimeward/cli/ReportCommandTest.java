@@ -91,6 +91,31 @@ class ReportCommandTest {
     assertThat(body(r.out())).isEqualTo(body(tonight));
   }
 
+  /**
+   * A recorded run's page in US units reads as the US page that night: its explanations are put
+   * in US units again from the run's own rule files, not left as recorded (metric).
+   */
+  @Test
+  void aRecordedRunsPageInUsUnitsIsInUsUnitsThroughout() throws IOException {
+    assertThat(plan("2026-04-15T02:00:00Z").exitCode()).isZero();
+    String runId;
+    try (AuditStore store = AuditStore.openReadOnly(farm.resolve("audit.db"))) {
+      runId = store.listRuns(Optional.empty(), Optional.empty()).get(0).runId();
+    }
+    Cli.Result r = Cli.run("audit", "show", runId, "--format", "html", "--units", "us", "--farm",
+        farm.toString());
+    assertThat(r.exitCode()).as(r.toString()).isZero();
+    assertThat(r.out()).doesNotContain("°C", "m3/h", "mm/h", "m/s", "per m³")
+        .contains("°F", "in/h", "gpm", "Target for hollow-cherry is 28.0 °F");
+    Path page = tmp.resolve("night-us.html");
+    plan("2026-04-15T02:00:00Z", "--format", "html", "--units", "us", "--output", page.toString(),
+        "--no-audit");
+    assertThat(body(r.out())).isEqualTo(body(Files.readString(page)));
+    Cli.Result text = Cli.run("audit", "show", runId, "--units", "us", "--farm", farm.toString());
+    assertThat(text.exitCode()).as(text.toString()).isZero();
+    assertThat(text.out()).doesNotContain("°C", "m3/h", "mm/h", "m/s", "per m³").contains("°F");
+  }
+
   @Test
   void theSeasonCountsEachNightOnceAndEveryBlock() throws IOException {
     assertThat(plan("2026-04-14T20:00:00Z").exitCode()).isZero();

@@ -174,6 +174,19 @@ class WindAndNearMissPlanTest {
     assertThat(berries.get("actions").get(0).get("deploy_by").asText()).isEqualTo(root.get("night").get("sunset").asText());
     Cli.Result text = plan(farm);
     assertThat(text.out()).contains("covers on (near miss)", "alarm at");
+    // The near miss's alarm is in the timeline at its time, worded as a near miss: it sprinkles
+    // only if the night runs colder than forecast.
+    JsonNode alarm = null;
+    for (JsonNode e : root.get("timeline")) {
+      if ("alarm".equals(e.path("event").asText()) && "apple-a".equals(e.path("block").asText())) {
+        alarm = e;
+      }
+    }
+    assertThat(alarm).as("apple-a's alarm in %s", root.get("timeline")).isNotNull();
+    assertThat(alarm.get("at").asText()).isEqualTo(apple.get("alarm_at").asText());
+    assertThat(alarm.get("air_c").asDouble()).isEqualTo(apple.get("alarm_air_c").asDouble());
+    assertThat(alarm.get("what").asText()).startsWith("frost alarm: air ")
+        .contains("near miss: sprinkle only if the air falls to");
   }
 
   static double[] fill(int n, double v) {

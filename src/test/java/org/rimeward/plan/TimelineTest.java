@@ -42,8 +42,14 @@ class TimelineTest {
       b.sprinkle().filter(Action.Sprinkle::withWater).ifPresent(s -> {
         expected.add(m(s.start()) + " sprinklers-on " + b.blockId());
         expected.add(m(s.stop()) + " sprinklers-off " + b.blockId());
+        // The frost alarm of a block that sprinkles, FAO 2005 ch. 7: set above the start.
+        AlarmReading a = b.alarm().orElseThrow();
+        expected.add(m(a.alarmAt()) + " alarm " + b.blockId());
       });
     }
+    // The demo's five blocks that sprinkle with water each have their alarm, and only they: the
+    // short-of-water creek-rome and the not-advised west-pear keep their sprinklers off.
+    assertThat(expected.stream().filter(e -> e.contains(" alarm "))).hasSize(5);
     List<String> got = t.stream().filter(e -> e.block() != null)
         .map(e -> e.at().toInstant() + " " + e.event() + " " + e.block()).toList();
     assertThat(got).containsExactlyInAnyOrderElementsOf(expected);
@@ -59,6 +65,17 @@ class TimelineTest {
         .containsExactly("pump-on " + pondOn, "pump-off " + pondOff);
     assertThat(t).filteredOn(e -> "well".equals(e.source()) && e.block() == null)
         .extracting(PlanDocument.TimelineEntry::event).containsExactly("pump-on", "pump-off");
+    // Each alarm comes before its block's sprinklers go on, and says the numbers it is set by.
+    for (PlanDocument.TimelineEntry alarm : t.stream().filter(e -> e.event().equals("alarm")).toList()) {
+      assertThat(t.indexOf(alarm)).isLessThan(indexOf(t, "sprinklers-on", alarm.block()));
+      PlanDocument.Block b = PlanDocuments.of(plan).block(alarm.block()).orElseThrow();
+      assertThat(alarm.airC()).isEqualTo(b.alarmAirC());
+      assertThat(alarm.at()).isEqualTo(b.alarmAt());
+    }
+    assertThat(t).filteredOn(e -> "hollow-cherry".equals(e.block()) && e.event().equals("alarm"))
+        .singleElement().satisfies(e -> assertThat(e.what()).isEqualTo(
+            "frost alarm: air 1.0 °C expected; sprinklers on at 0.0 °C air (wet bulb -1.8 °C)"));
+    assertThat(t).noneMatch(e -> "west-pear".equals(e.block()));
     // At one minute a pump goes on before the sprinklers it feeds and off after them.
     int pumpOn = indexOf(t, "pump-on", "pond");
     assertThat(t.get(pumpOn + 1).event()).isEqualTo("sprinklers-on");
@@ -141,12 +158,14 @@ class TimelineTest {
     return start ? s.start() : s.stop();
   }
 
-  private static int indexOf(List<PlanDocument.TimelineEntry> t, String event, String source) {
+  /** The first entry of {@code event} for a water source or, failing that, a block. */
+  private static int indexOf(List<PlanDocument.TimelineEntry> t, String event, String who) {
     for (int i = 0; i < t.size(); i++) {
-      if (t.get(i).event().equals(event) && source.equals(t.get(i).source())) {
+      if (t.get(i).event().equals(event) && (who.equals(t.get(i).source()) && t.get(i).block() == null
+          || who.equals(t.get(i).block()))) {
         return i;
       }
     }
-    throw new AssertionError(event + " " + source + " not in " + t);
+    throw new AssertionError(event + " " + who + " not in " + t);
   }
 }

@@ -66,7 +66,28 @@ class BrowserPagesTest {
         assertThat(section).as(b.block()).contains(">start " + start + "<");
       });
     }
+    // The night at a glance sits in the header, alarms in it, in the browser's rendering too.
+    String header = dom.substring(dom.indexOf("<header>"), dom.indexOf("</header>"));
+    assertThat(header).contains("id=\"timeline\"", "data-event=\"alarm\"",
+        "frost alarm: air 1.0 °C expected");
     screenshot(page, 1200, 3000);
+  }
+
+  /** A re-plan's page, with readings drawn as points on the charts, renders without an error. */
+  @Test
+  void aReplanWithReadingsRendersItsPoints() throws Exception {
+    assumeTrue(chromium != null, "Chromium is not installed here: skipped");
+    String json = Files.readString(Path.of("src/test/resources/golden/demo-plan.json"))
+        .replaceFirst("\"farm\" :", "\"now\" : \"2026-04-14T22:00-07:00\", \"readings\" : {"
+            + "\"file\" : \"station-readings.csv\", \"last_at\" : \"2026-04-14T22:00-07:00\","
+            + " \"stale\" : false, \"points\" : [{\"at\" : \"2026-04-14T20:00-07:00\", \"air_c\" : 3.0},"
+            + " {\"at\" : \"2026-04-14T22:00-07:00\", \"air_c\" : 1.0}]},\n  \"farm\" :");
+    Path page = tmp.resolve("replan.html");
+    Files.writeString(page, NightPage.html(NightPage.of(PlanJson.read(json),
+        UnitFormat.of(UnitSystem.US), PlanDocument.Rule::explanation, Map.of(), null)));
+    String dom = run(page, "--dump-dom");
+    assertThat(NightPageTest.section(dom, "block-hollow-cherry"))
+        .contains("readings (station + block offset)", "now 22:00 (readings to here)");
   }
 
   @Test

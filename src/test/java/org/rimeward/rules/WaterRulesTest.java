@@ -11,6 +11,7 @@ import org.rimeward.rules.facts.PartProtection;
 import org.rimeward.rules.facts.Status;
 import org.rimeward.rules.facts.WaterBalance;
 import org.rimeward.rules.facts.WithoutWater;
+import org.rimeward.units.UnitSystem;
 import org.rimeward.water.Grant;
 import org.rimeward.water.GrantKind;
 import org.rimeward.water.IrrigationSet;
@@ -216,7 +217,15 @@ class WaterRulesTest {
     WaterBalance w = balance(r, "well");
     assertThat(w.allocation().rankedByValue()).isFalse();
     assertThat(w.allocation().dropped()).containsExactly("b1");
-    assertThat(r.explanation("WATER-WITHOUT", "b1")).contains("hectares of buds saved 0.00117 per m³");
+    assertThat(r.explanation("WATER-WITHOUT", "b1")).contains("(0.00117 ha of buds saved per m³,");
+    // In US units the stake is an area per volume: acres per 1,000 gal, both from NIST SP 811
+    // (1 acre = 4046.8564224 m², 1 gal = 3.785411784 L): 0.4 × 4 / 1362.93 ha per m³ is
+    // 0.0109... ac per 1,000 gal, shown to three significant figures.
+    double acresPer1000Gal = 0.4 * 4 / 1362.93 * (10_000 / 4046.8564224) * 3.785411784;
+    assertThat(acresPer1000Gal).isCloseTo(0.01098, within(0.00001));
+    FiredRule f = r.firing("WATER-WITHOUT", "b1");
+    assertThat(Explanations.render(f.template(), f.values(), UnitSystem.US, java.time.ZoneOffset.UTC))
+        .contains("(0.011 ac of buds saved per 1,000 gal,").doesNotContain("hectare", " ha ", "m³");
   }
 
   @Test

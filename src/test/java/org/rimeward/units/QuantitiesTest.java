@@ -98,4 +98,17 @@ class QuantitiesTest {
     assertThat(Quantities.symbol(Dimension.PRESSURE, UnitSystem.US)).isEqualTo("kPa");
     assertThat(Quantities.format(-2.0, Dimension.TEMPERATURE, UnitSystem.US, 1)).isEqualTo("28.4 °F");
   }
+
+  @Test
+  void aTextQuotingBothSystemsKeepsTheReadersFigureAlone() {
+    // As the crop profiles and the fabric table write their sources' figures.
+    String source = "single stage tolerance -1.1 °C (30.0 °F), T90 = tolerance − 1.67 °C (3.0 °F);"
+        + " fabric 50.9 g/m² (1.50 oz/yd²): 5.0 °F (2.78 °C); 1,250 m³ (330,215 gal)";
+    assertThat(UnitFormat.of(UnitSystem.US).quoted(source)).isEqualTo("single stage tolerance"
+        + " 30.0 °F, T90 = tolerance − 3.0 °F; fabric 1.50 oz/yd²: 5.0 °F; 330,215 gal");
+    assertThat(UnitFormat.of(UnitSystem.METRIC).quoted(source)).isEqualTo(source);
+    // A figure in one system only, or a bracket that is not its twin, is left alone.
+    assertThat(UnitFormat.of(UnitSystem.US).quoted("WSU EB0913 (Red Delicious), 2 °F hardier"))
+        .isEqualTo("WSU EB0913 (Red Delicious), 2 °F hardier");
+  }
 }

@@ -85,7 +85,7 @@ class AlarmCheckTest {
         b.t10C(), b.t90C(), b.thresholdSource(), b.targetC(), b.minAirC(), b.minBudC(),
         b.minWetBulbC(), b.coldestAt(), b.coldestLine(), b.risk(), b.killPctUnprotected(),
         b.status(), b.actions(), b.sprinkling(), Optional.of(moved), b.cautions(), b.rules(),
-        b.series());
+        b.series(), b.coldAirOffsetC());
     List<BlockPlan> blocks = plan.blocks().stream().map(x -> x == cherry ? changed : x).toList();
     return new Plan(plan.farmName(), plan.toolVersion(), plan.night(), plan.policy(), blocks,
         plan.water(), plan.cautions(), plan.trail(), plan.inputs(), plan.update());
@@ -175,33 +175,23 @@ class AlarmCheckTest {
     assertThat(cherryAlarms(withAlarmAbove(3.0), Optional.empty(), UnitSystem.METRIC)).isEmpty();
   }
 
-  /** The alarm-temperature alarms of {@code blockId} with the air at the block at {@code blockAirC}. */
-  private List<Alarm> alarmsAt(String blockId, double blockAirC) {
-    Block block = rp.farm().blocks().stream().filter(b -> b.id().equals(blockId)).findFirst()
-        .orElseThrow();
-    double station = blockAirC - block.coldAirOffsetC();
-    Optional<Reading> r = Optional.of(new Reading(NOW, ZONE.getRules().getOffset(NOW), "", station,
-        OptionalDouble.of(Math.min(station, -5.0)), OptionalDouble.of(1.0), 2.0,
-        OptionalDouble.empty(), OptionalDouble.empty(), 0));
-    return AlarmCheck.check(plan, rp.farm(), r, NOW, WatchPolicy.from(rp.thresholds(),
-        Duration.ofSeconds(10)), UnitFormat.of(UnitSystem.METRIC)).stream()
-        .filter(a -> a.blockId().equals(blockId) && a.kind() == AlarmKind.ALARM_TEMPERATURE)
-        .toList();
-  }
-
   @Test
-  void aBlockThePlanDoesNotSprinkleStillRingsAtItsAlarmTemperature() {
-    // west-pear's run is advised against (wind) and creek-rome has no water tonight: the cold
-    // coming early is what the manager must hear most, with what the plan said of the block.
-    for (String id : List.of("west-pear", "creek-rome")) {
-      BlockPlan b = plan.blocks().stream().filter(x -> x.blockId().equals(id)).findFirst()
-          .orElseThrow();
-      assertThat(b.sprinkle().filter(org.rimeward.plan.Action.Sprinkle::withWater)).as(id).isEmpty();
-      double alarmC = b.alarm().orElseThrow().alarmAirC();
-      assertThat(alarmsAt(id, alarmC - 0.2)).as(id).singleElement().satisfies(a ->
-          assertThat(a.message()).contains("the plan does not sprinkle this block tonight"));
-      // Near miss: just above the plan's alarm temperature.
-      assertThat(alarmsAt(id, alarmC + 0.2)).as(id).isEmpty();
-    }
+  void aNearMissWithNoRunPlannedStillRingsAtItsAlarmTemperature() {
+    // A near miss (rules ALARM-NEAR-MISS*): the plan sprinkles nothing, but sets an alarm for a
+    // night that runs colder than forecast; the cold coming early is what the manager must hear.
+    BlockPlan b = cherry;
+    BlockPlan nearMiss = new BlockPlan(b.blockId(), b.crop(), b.variety(), b.stage(),
+        b.stageName(), b.t10C(), b.t90C(), b.thresholdSource(), b.targetC(), b.minAirC(),
+        b.minBudC(), b.minWetBulbC(), b.coldestAt(), b.coldestLine(), b.risk(),
+        b.killPctUnprotected(), b.status(), List.of(), Optional.empty(), b.alarm(), b.cautions(),
+        b.rules(), b.series(), b.coldAirOffsetC());
+    Plan p = new Plan(plan.farmName(), plan.toolVersion(), plan.night(), plan.policy(),
+        plan.blocks().stream().map(x -> x == cherry ? nearMiss : x).toList(), plan.water(),
+        plan.cautions(), plan.trail(), plan.inputs(), plan.update());
+    double alarmC = cherry.alarm().orElseThrow().alarmAirC();
+    assertThat(cherryAlarms(p, atBlock(alarmC - 0.2), UnitSystem.METRIC)).singleElement()
+        .satisfies(a -> assertThat(a.message()).contains("the plan forecast a near miss"));
+    // Near miss of the alarm itself: just above it.
+    assertThat(cherryAlarms(p, atBlock(alarmC + 0.2), UnitSystem.METRIC)).isEmpty();
   }
 }

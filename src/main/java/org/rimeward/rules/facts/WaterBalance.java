@@ -85,6 +85,7 @@ public record WaterBalance(String sourceId, double maxFlowM3H, double availableM
 
   /** How blocks were ranked, in words. */
   public String basis() {
-    return allocation.rankedByValue() ? "crop value saved" : "hectares of buds saved";
+    // No unit here: the words are read in either unit system.
+    return allocation.rankedByValue() ? "crop value saved" : "area of buds saved";
   }
 }
