@@ -48,9 +48,7 @@ final class WatchCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
   @Mixin DataFolders folders;
 
-  @Option(names = "--farm", paramLabel = "DIR", defaultValue = ".",
-      description = "Farm folder holding farm.yaml and the forecast (default: the current folder).")
-  Path farm;
+  @Mixin AuditOptions audit = new AuditOptions();
 
   @Option(names = "--readings", paramLabel = "FILE",
       description = "The station's readings CSV the logger appends to (default: <farm>/readings.csv).")
@@ -97,18 +95,11 @@ final class WatchCommand implements Callable<Integer> {
       description = "Stop the --on-alarm command after this long (default: ${DEFAULT-VALUE}).")
   String commandTimeout;
 
-  @Option(names = "--audit", paramLabel = "FILE",
-      description = "Audit database (default: <farm>/audit.db).")
-  Path audit;
-
-  @Option(names = "--no-audit", description = "Record nothing in the audit trail.")
-  boolean noAudit;
 
   @Override
   public Integer call() throws Exception {
-    if (noAudit && audit != null) {
-      throw new BadInputException("--audit and --no-audit: give one or the other");
-    }
+    boolean recording = audit.recording();
+    Path farm = audit.farm();
     Duration interval = duration(every, "--every");
     if (interval.compareTo(Duration.ofSeconds(5)) < 0) {
       throw new BadInputException("--every: " + every + " is too short; give 5s or more");
@@ -140,7 +131,7 @@ final class WatchCommand implements Callable<Integer> {
     var err = spec.commandLine().getErr();
     try (NightWatch watch = new NightWatch(rp, file, Optional.ofNullable(station), policy,
         UnitFormat.of(UnitsOption.of(spec)),
-        noAudit ? Optional.empty() : Optional.of(audit != null ? audit : AuditStore.fileFor(farm)),
+        recording ? Optional.of(audit.file()) : Optional.empty(),
         Optional.ofNullable(onAlarm), out, err)) {
       return watch(watch, file, start, clock, interval);
     }

@@ -53,16 +53,10 @@ final class StationReader {
         continue;
       }
       int problemsBefore = s.problems().size();
-      String id = FarmLoader.id(s, "the station's id as the readings file's 'station' column"
-          + " writes it, e.g. id: hollow");
-      if (id != null) {
-        s = s.renamed("stations[" + id + "]");
-        Integer previous = stationLines.putIfAbsent(id, s.lineOf("id"));
-        if (previous != null) {
-          s.problem("id", "'" + id + "' is already the id of the station on line " + previous
-              + "; give each station its own id");
-        }
-      }
+      FarmLoader.IdItem item = FarmLoader.idItem(s, "stations", "station", "the station's id as"
+          + " the readings file's 'station' column writes it, e.g. id: hollow", stationLines);
+      String id = item.id();
+      s = item.fields();
       s.allow("id", "height", "bud_height", "blocks", "default");
       Double heightM = height(s, "height", true, "the height of the thermometer above the ground,"
           + " e.g. height: 1.5 m or 5 ft");
