@@ -17,11 +17,7 @@ class OutOfMemoryIT {
 
   @Test
   void outOfMemorySaysSoInOneLineAndLeavesTheTrailWhole() throws Exception {
-    Path farm = tmp.resolve("farm");
-    Files.createDirectories(farm);
-    for (String f : List.of("farm.yaml", "forecast.csv")) {
-      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
-    }
+    Path farm = demoFarm();
     // A first run with room records one whole run, and leaves the compiled rules in a cache of the
     // test's own: the run that runs out of memory then does so while planning, not inside the rule
     // compiler, which reports a failure of its worker threads without the error that caused it.
@@ -52,11 +48,7 @@ class OutOfMemoryIT {
    */
   @Test
   void outOfMemoryWhileCompilingTheRulesSaysSoToo() throws Exception {
-    Path farm = tmp.resolve("farm");
-    Files.createDirectories(farm);
-    for (String f : List.of("farm.yaml", "forecast.csv")) {
-      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
-    }
+    Path farm = demoFarm();
     for (String gc : List.of("-XX:+UseSerialGC", "-XX:+UseG1GC")) {
       String cache = "-Drimeward.cache=" + tmp.resolve("empty-cache" + gc.hashCode());
       ChildProcess.Run r = ChildProcess.run(new ProcessBuilder(ChildProcess.jar(
@@ -72,5 +64,15 @@ class OutOfMemoryIT {
         db -> assertThat(ChildProcess.run(new ProcessBuilder(ChildProcess.jar(List.of(), "audit",
             "list", "--farm", farm.toString())).directory(tmp.toFile()), 300).out())
             .doesNotContain("2026-04-14"));
+  }
+
+  /** The demo farm's farm.yaml and forecast in a folder of the test's own, with no trail yet. */
+  private Path demoFarm() throws java.io.IOException {
+    Path farm = tmp.resolve("farm");
+    Files.createDirectories(farm);
+    for (String f : List.of("farm.yaml", "forecast.csv")) {
+      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
+    }
+    return farm;
   }
 }
