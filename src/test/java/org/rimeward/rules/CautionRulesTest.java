@@ -115,6 +115,14 @@ class CautionRulesTest {
         .doesNotFire("CAUTION-BREEZY");
   }
 
+  @Test
+  void noBreezyCautionWhereSprinklingIsNotAdvised() {
+    // 1.0 mm/h is far short of the need on this night: sprinkling is not advised, so nothing
+    // "runs" for the breeze to speed up; the not-advised words say what matters instead.
+    BundledRules.Run r = frost(b -> b.sprinklers(1.0, "pond").wind(windAt0300(3.0)));
+    BundledRules.assertFired(r).fires("CAUTION-RATE-SHORT").doesNotFire("CAUTION-BREEZY");
+  }
+
   /** The frost night's coldest hour is 05:00 (step 11). */
   static double[] windAt0500(double ms) {
     return Scenario.with(Scenario.fill(16, 1.0), 11, ms);
