@@ -73,6 +73,9 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
    * @param id the station's id (empty: the file names none)
    * @param declared whether farm.yaml declares it; an undeclared station's rows are not used
    * @param isDefault whether it stands for the blocks no station lists
+   * @param hangsIn the blocks farm.yaml lists for it: it hangs in them, so its readings are their
+   *     air, with no cold-air offset added
+   * @param points its air readings over the planned window up to now, in time order
    * @param heightM its thermometer's height above the ground, m (NaN: not declared)
    * @param budHeightM the height of its blocks' lowest buds, m (NaN: not given)
    * @param blocks the blocks whose forecast its readings corrected
@@ -85,10 +88,12 @@ public record NightUpdate(Instant now, ReadingsSummary readings, List<Change> ch
    */
   public record StationSummary(String id, boolean declared, boolean isDefault, double heightM,
       double budHeightM, List<String> blocks, int rows, Optional<Instant> lastAt, double biasC,
-      double dewBiasC, boolean stale, String note) {
+      double dewBiasC, boolean stale, String note, List<String> hangsIn, List<Point> points) {
     public StationSummary {
       Objects.requireNonNull(id, "id");
       blocks = List.copyOf(blocks);
+      hangsIn = List.copyOf(hangsIn);
+      points = List.copyOf(points);
       Objects.requireNonNull(lastAt, "lastAt");
       Objects.requireNonNull(note, "note");
     }

@@ -26,7 +26,9 @@ final class NightUpdateView {
         st.declared(), st.isDefault(), nullIfNaN(st.heightM()), nullIfNaN(st.budHeightM()),
         st.blocks(), st.rows(), st.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null),
         nullIfNaN(st.biasC()), nullIfNaN(st.dewBiasC()), st.stale(),
-        st.note().isEmpty() ? null : st.note())).toList();
+        st.note().isEmpty() ? null : st.note(), st.hangsIn(), st.points().stream()
+            .map(p -> new PlanDocument.Point(PlanDocuments.time(p.at(), zone), p.airC())).toList()))
+        .toList();
     return new PlanDocument.Readings(r.file(),
         r.lastAt().map(t -> PlanDocuments.time(t, zone)).orElse(null), nullIfNaN(r.biasC()),
         nullIfNaN(r.dewBiasC()), stations, r.station(), r.method(), r.methodText(), r.rows(),

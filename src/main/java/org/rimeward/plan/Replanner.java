@@ -139,7 +139,7 @@ public final class Replanner {
       ForecastCorrection.Corrected own = correct.apply(ownOffset);
       boolean stale = own.lastAt().map(t -> Duration.between(t, now).toMinutes()
           > thresholds.staleAfterMin()).orElse(true);
-      stations.add(summary(src, own, stale));
+      stations.add(summary(src, own, stale, points(src.readings(), now)));
       if (src.id().equals(split.main())) {
         main = own;
         mainReadings = src.readings();
@@ -185,11 +185,7 @@ public final class Replanner {
         stations, split.main(), ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT,
         readings.readings().size(), readings.skipped().stream().map(Readings.Skipped::message)
             .toList(), anyStale, thresholds.staleAfterMin(), site,
-        // What the page charts beside the forecast: the main station's readings of the planned
-        // window up to now.
-        mainReadings.stream().filter(r -> !r.time().isBefore(plan.night().forecastStart())
-            && !r.time().isAfter(now)).map(r -> new NightUpdate.Point(r.time(), r.airTempC()))
-            .toList());
+        points(mainReadings, now));
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
   }
 
@@ -209,15 +205,25 @@ public final class Replanner {
     return new Forecast(f.file(), steps);
   }
 
+  /**
+   * What the page charts beside the forecast: a station's air readings up to now, from the
+   * window's first forecast step (the chart starts there).
+   */
+  private List<NightUpdate.Point> points(List<Reading> rows, Instant now) {
+    Instant from = forecast.steps().isEmpty() ? Instant.MIN : forecast.steps().get(0).time();
+    return rows.stream().filter(r -> !r.time().isAfter(now) && !r.time().isBefore(from))
+        .map(r -> new NightUpdate.Point(r.time(), r.airTempC())).toList();
+  }
+
   private static NightUpdate.StationSummary summary(ReadingsByStation.Source src,
-      ForecastCorrection.Corrected c, boolean stale) {
+      ForecastCorrection.Corrected c, boolean stale, List<NightUpdate.Point> points) {
     return new NightUpdate.StationSummary(src.id(), src.declared().isPresent(),
         src.declared().map(Station::isDefault).orElse(false),
         src.declared().map(Station::heightM).orElse(Double.NaN),
         src.declared().flatMap(st -> st.budHeightM().isPresent()
             ? Optional.of(st.budHeightM().getAsDouble()) : Optional.empty()).orElse(Double.NaN),
         src.blocks(), src.readings().size(), c.lastAt(), c.biasC(), c.dewBiasC(), stale,
-        src.note());
+        src.note(), src.listed(), points);
   }
 
   /** A station's latest reading at or before the latest {@link #replan}'s now. */

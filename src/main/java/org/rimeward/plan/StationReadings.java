@@ -29,15 +29,19 @@ public record StationReadings(
     @JsonSerialize(using = Decimals.Two.class) Double biasC,
     @JsonSerialize(using = Decimals.Two.class) Double dewPointBiasC,
     boolean stale,
-    @JsonInclude(JsonInclude.Include.NON_NULL) String note) {
+    @JsonInclude(JsonInclude.Include.NON_NULL) String note,
+    @JsonInclude(JsonInclude.Include.NON_EMPTY) List<String> hangsIn,
+    @JsonInclude(JsonInclude.Include.NON_EMPTY) List<PlanDocument.Point> points) {
   public StationReadings {
     blocks = blocks == null ? List.of() : List.copyOf(blocks);
+    hangsIn = hangsIn == null ? List.of() : List.copyOf(hangsIn);
+    points = points == null ? List.of() : List.copyOf(points);
   }
 
   /** A station as older runs recorded it: its id alone. */
   @JsonCreator(mode = JsonCreator.Mode.DELEGATING)
   static StationReadings ofId(String id) {
     return new StationReadings(id, false, false, null, null, List.of(), 0, null, null, null,
-        false, null);
+        false, null, List.of(), List.of());
   }
 }

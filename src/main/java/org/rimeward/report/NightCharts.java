@@ -35,11 +35,13 @@ final class NightCharts {
   private NightCharts() {}
 
   /**
-   * One block's chart; {@code readings} are the station's air readings of a re-plan (empty at
-   * dusk), drawn as points at the block: the reading plus the block's cold-air offset.
+   * One block's chart; {@code readings} are the air readings of the block's station in a re-plan
+   * (empty at dusk), drawn as points at the block: the reading plus the block's cold-air offset,
+   * or the reading itself where the thermometer hangs in the block ({@code inBlock}).
    */
   static String block(PlanDocument.Block b, UnitFormat fmt, ZoneId zone, OffsetDateTime now,
-      List<PlanDocument.Point> readings) {
+      List<PlanDocument.Point> readings, boolean inBlock) {
+    double offsetC = inBlock ? 0.0 : b.coldAirOffsetC();
     XYSeries air = new XYSeries("forecast air");
     XYSeries bud = new XYSeries("bud, estimated (dry)");
     XYSeries wet = new XYSeries("wet bulb");
@@ -53,13 +55,14 @@ final class NightCharts {
       lo = Math.min(lo, Math.min(s.budC(), s.wetBulbC()));
       hi = Math.max(hi, s.airC());
     }
-    XYSeries read = new XYSeries("readings (station + block offset)");
+    XYSeries read = new XYSeries(inBlock ? "readings at the block"
+        : "readings (station + block offset)");
     long first = b.series().isEmpty() ? Long.MIN_VALUE : millis(b.series().get(0).at());
     for (PlanDocument.Point p : readings) {
       if (millis(p.at()) < first) {
         continue;
       }
-      double atBlockC = p.airC() + b.coldAirOffsetC();
+      double atBlockC = p.airC() + offsetC;
       read.add(millis(p.at()), fmt.tempValue(atBlockC));
       lo = Math.min(lo, atBlockC);
       hi = Math.max(hi, atBlockC);

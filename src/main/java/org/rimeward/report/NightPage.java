@@ -115,8 +115,7 @@ public final class NightPage {
           b.actions().stream().map(a -> PlanText.action(a, fmt)).toList(),
           b.sprinkle().filter(s -> s.waterGranted() && s.start() != null)
               .map(s -> fmt.clock(s.start())).orElse(""),
-          chart ? NightCharts.block(b, fmt, zone, plan.now(),
-              plan.readings() == null ? List.of() : plan.readings().points()) : "",
+          chart ? blockChart(plan, b, fmt, zone) : "",
           b.rules().stream().map(r -> new RuleView(r.id(), r.kind(), words.apply(r))).toList(),
           b.cautionRules().stream().map(words).toList(),
           done.getOrDefault(b.block(), List.of()));
@@ -176,5 +175,23 @@ public final class NightPage {
   /** The page as one self-contained HTML file. */
   public static String html(Model model) {
     return Pages.render("night", model);
+  }
+
+  /**
+   * A block's chart with the readings of its own station in a re-plan: those of the station that
+   * stands for the block, else the main station's (a plan recorded before stations were kept).
+   */
+  private static String blockChart(PlanDocument plan, PlanDocument.Block b, UnitFormat fmt,
+      ZoneId zone) {
+    PlanDocument.Readings r = plan.readings();
+    if (r == null) {
+      return NightCharts.block(b, fmt, zone, plan.now(), List.of(), false);
+    }
+    return r.stations().stream().filter(st -> st.blocks().contains(b.block())
+            && !st.points().isEmpty()).findFirst()
+        .map(st -> NightCharts.block(b, fmt, zone, plan.now(), st.points(),
+            st.hangsIn().contains(b.block())))
+        .orElseGet(() -> NightCharts.block(b, fmt, zone, plan.now(),
+            r.points() == null ? List.of() : r.points(), false));
   }
 }

@@ -284,4 +284,25 @@ class PlanStationsTest {
     assertThat(station(later, "hollow").path("stale").asBoolean()).isTrue();
     assertThat(station(later, "mast").path("stale").asBoolean()).isFalse();
   }
+
+  @Test
+  void eachBlocksChartShowsItsOwnStationsReadings() throws Exception {
+    // mast reads the forecast exactly; hollow hangs in hollow-cherry and reads 2 °C colder.
+    List<String> all = new ArrayList<>(rows("mast", NOW, 0.0));
+    all.addAll(rows("hollow", NOW, -2.0));
+    JsonNode json = JSON.readTree(plan(readings(all), "--format", "json").out());
+    assertThat(station(json, "hollow").get("hangs_in")).hasSize(1);
+    assertThat(station(json, "hollow").get("points").size()).isGreaterThan(10);
+    assertThat(station(json, "mast").has("hangs_in")).as("mast is listed for no block").isFalse();
+    String page = plan(readings(all), "--format", "html").out();
+    // A thermometer hanging in the block reads its air: no offset added, and the legend says so;
+    // the other blocks' charts show mast's readings plus their own offset.
+    String cherry = page.substring(page.indexOf("id=\"block-hollow-cherry\""));
+    cherry = cherry.substring(0, cherry.indexOf("</section>"));
+    assertThat(cherry).contains("readings at the block");
+    String peach = page.substring(page.indexOf("id=\"block-lane-peach\""));
+    peach = peach.substring(0, peach.indexOf("</section>"));
+    assertThat(peach).contains("readings (station + block offset)")
+        .doesNotContain("readings at the block");
+  }
 }
