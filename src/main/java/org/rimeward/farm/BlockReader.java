@@ -65,14 +65,9 @@ final class BlockReader {
     Double areaHa = b.value("area", FarmLoader.quantity(b, "area", Dimension.AREA),
         "the planted area, e.g. area: 4.5 ha or 11 ac");
     ref("area", "area");
-    if (areaHa != null && !(areaHa > 0)) {
-      b.problem("area", b.quoted("area") + " must be above 0; give the planted area, e.g. 4.5 ha"
-          + " or 11 ac");
-    } else if (areaHa != null && areaHa > Block.MAX_AREA_HA) {
-      b.problem("area", String.format(Locale.ROOT, "%s (%.0f ha) is more than %.0f ha, larger"
-          + " than any one block is managed, so likely a typo: if a decimal point slipped (4500"
-          + " for 4.5), fix it, or split the area into blocks", b.quoted("area"), areaHa, Block.MAX_AREA_HA));
-    }
+    FarmLoader.positiveUpTo(b, "area", areaHa, "give the planted area, e.g. 4.5 ha or 11 ac",
+        Block.MAX_AREA_HA, "ha", "larger than any one block is managed, so likely a typo: if a"
+            + " decimal point slipped (4500 for 4.5), fix it, or split the area into blocks");
     double offsetC = 0;
     if (b.has("cold_air_offset")) {
       ref("cold_air_offset", "cold_air_offset");

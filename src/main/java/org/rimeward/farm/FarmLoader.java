@@ -258,6 +258,30 @@ public final class FarmLoader {
   }
 
   /** An id: typed on the command line and stored in the audit, so kept plain. */
+  /**
+   * Checks a quantity read from {@code key} (already in {@code unit}) is above 0 and at most
+   * {@code max}, adding one problem otherwise: {@code give} says what to write instead of a
+   * value not above 0; {@code tooBig} why a value over {@code max} is likely a typo.
+   *
+   * @return whether the value is there and usable
+   */
+  static boolean positiveUpTo(Fields s, String key, Double value, String give, double max,
+      String unit, String tooBig) {
+    if (value == null) {
+      return false;
+    }
+    if (!(value > 0)) {
+      s.problem(key, s.quoted(key) + " must be above 0; " + give);
+      return false;
+    }
+    if (value > max) {
+      s.problem(key, String.format(Locale.ROOT, "%s (%.0f %s) is more than %.0f %s, %s",
+          s.quoted(key), value, unit, max, unit, tooBig));
+      return false;
+    }
+    return true;
+  }
+
   /** An item of a list whose entries have ids: its fields, named by the id where it has one. */
   record IdItem(Fields fields, String id) {}
 

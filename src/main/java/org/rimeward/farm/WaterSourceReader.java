@@ -3,7 +3,6 @@ package org.rimeward.farm;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.OptionalDouble;
 import java.util.Set;
@@ -43,25 +42,16 @@ final class WaterSourceReader {
       s.allow("id", "max_flow", "volume");
       Double flow = s.value("max_flow", FarmLoader.quantity(s, "max_flow", Dimension.FLOW),
           "the most the source delivers, e.g. max_flow: 450 m3/h or 2000 gpm");
-      if (flow != null && !(flow > 0)) {
-        s.problem("max_flow", s.quoted("max_flow") + " must be above 0; give the most the source"
-            + " can deliver, e.g. 450 m3/h or 2000 gpm");
-      } else if (flow != null && flow > WaterSource.MAX_FLOW_M3_H) {
-        s.problem("max_flow", String.format(Locale.ROOT, "%s (%.0f m3/h) is more than %.0f m3/h,"
-            + " more than a large river pumping station delivers; check the number and its unit"
-            + " (gpm, L/s or m3/h)", s.quoted("max_flow"), flow, WaterSource.MAX_FLOW_M3_H));
-      }
+      FarmLoader.positiveUpTo(s, "max_flow", flow, "give the most the source can deliver, e.g."
+          + " 450 m3/h or 2000 gpm", WaterSource.MAX_FLOW_M3_H, "m3/h", "more than a large river"
+              + " pumping station delivers; check the number and its unit (gpm, L/s or m3/h)");
       OptionalDouble volume = OptionalDouble.empty();
       if (s.has("volume")) {
         Double m3 = s.optionalValue("volume", FarmLoader.quantity(s, "volume", Dimension.VOLUME));
-        if (m3 != null && !(m3 > 0)) {
-          s.problem("volume", s.quoted("volume") + " must be above 0; give the usable volume, e.g."
-              + " 9000 m3 or 7.3 acre-ft, or leave volume out for a well with no volume limit");
-        } else if (m3 != null && m3 > WaterSource.MAX_VOLUME_M3) {
-          s.problem("volume", String.format(Locale.ROOT, "%s (%.0f m3) is more than %.0f m3, the"
-              + " size of a large irrigation reservoir; check the number and its unit (m3, ML,"
-              + " acre-ft or gal)", s.quoted("volume"), m3, WaterSource.MAX_VOLUME_M3));
-        } else if (m3 != null) {
+        if (FarmLoader.positiveUpTo(s, "volume", m3, "give the usable volume, e.g. 9000 m3 or"
+            + " 7.3 acre-ft, or leave volume out for a well with no volume limit",
+            WaterSource.MAX_VOLUME_M3, "m3", "the size of a large irrigation reservoir; check the"
+                + " number and its unit (m3, ML, acre-ft or gal)")) {
           volume = OptionalDouble.of(m3);
         }
       }
