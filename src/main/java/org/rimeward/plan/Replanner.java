@@ -120,7 +120,6 @@ public final class Replanner {
     List<NightUpdate.StationSummary> stations = new ArrayList<>();
     Forecast nightForecast = forecast;
     ForecastCorrection.Corrected main = null;
-    List<Reading> mainReadings = List.of();
     Optional<NightUpdate.SiteMinimum> site = Optional.empty();
     boolean anyStale = false;
     Map<String, Reading> latest = new HashMap<>();
@@ -142,7 +141,6 @@ public final class Replanner {
       stations.add(summary(src, own, stale, points(src.readings(), now)));
       if (src.id().equals(split.main())) {
         main = own;
-        mainReadings = src.readings();
         nightForecast = own.forecast();
       }
       if (src.blocks().isEmpty()) {
@@ -185,7 +183,8 @@ public final class Replanner {
         stations, split.main(), ForecastCorrection.METHOD, ForecastCorrection.METHOD_TEXT,
         readings.readings().size(), readings.skipped().stream().map(Readings.Skipped::message)
             .toList(), anyStale, thresholds.staleAfterMin(), site,
-        points(mainReadings, now));
+        stations.stream().filter(st -> st.id().equals(split.main())).findFirst()
+            .map(NightUpdate.StationSummary::points).orElse(List.of()));
     return plan.withUpdate(new NightUpdate(now, summary, List.of()));
   }
 

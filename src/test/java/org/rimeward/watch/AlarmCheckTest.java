@@ -9,7 +9,6 @@ import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.ZoneId;
 import java.util.List;
-import java.util.Locale;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.BeforeEach;
@@ -24,9 +23,6 @@ import org.rimeward.plan.Replanner;
 import org.rimeward.rules.RuleBook;
 import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
-import org.rimeward.weather.Forecast;
-import org.rimeward.weather.ForecastCorrection;
-import org.rimeward.weather.ForecastReader;
 import org.rimeward.weather.Reading;
 import org.rimeward.weather.ReadingsReader;
 
@@ -48,19 +44,8 @@ class AlarmCheckTest {
 
   @BeforeEach
   void replanTheDemoNight() throws Exception {
-    Path farm = Files.createDirectory(tmp.resolve("farm"));
-    for (String f : List.of("farm.yaml", "forecast.csv")) {
-      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
-    }
-    Forecast forecast = ForecastReader.read(farm.resolve("forecast.csv"), ZONE);
-    StringBuilder csv = new StringBuilder("time,air_temp_c,dew_point_c,wind_ms\n");
-    for (Instant t = NOW.minus(Duration.ofHours(3)); !t.isAfter(NOW); t = t.plus(Duration.ofMinutes(10))) {
-      double air = ForecastCorrection.forecastAirC(forecast, t);
-      csv.append(OffsetDateTime.ofInstant(t, ZONE)).append(String.format(Locale.ROOT,
-          ",%.2f,%.2f,1.0%n", air, Math.min(air, -5.0)));
-    }
+    Path farm = DemoNight.farmWithReadings(tmp, NOW.minus(Duration.ofHours(3)), NOW);
     Path readings = farm.resolve("readings.csv");
-    Files.writeString(readings, csv.toString());
     rp = Replanner.load(new PlanRequest(farm, null, Path.of("crop-profiles"), Path.of("rules"), null),
         RuleBook::load);
     plan = rp.replan(ReadingsReader.read(readings, ZONE), Files.readAllBytes(readings), NOW,

@@ -12,7 +12,6 @@ import java.time.LocalDate;
 import java.time.OffsetDateTime;
 import java.time.ZoneId;
 import java.util.List;
-import java.util.Locale;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -23,9 +22,6 @@ import org.rimeward.plan.Replanner;
 import org.rimeward.rules.RuleBook;
 import org.rimeward.units.UnitFormat;
 import org.rimeward.units.UnitSystem;
-import org.rimeward.weather.Forecast;
-import org.rimeward.weather.ForecastCorrection;
-import org.rimeward.weather.ForecastReader;
 
 /**
  * The watch keeps its audit trail open from pass to pass: what another program records meanwhile
@@ -44,19 +40,8 @@ class NightWatchTrailTest {
 
   @Test
   void theTrailKeptOpenStillSeesOthersAndMovesWithTheFarm() throws Exception {
-    Path farm = Files.createDirectory(tmp.resolve("farm"));
-    for (String f : List.of("farm.yaml", "forecast.csv")) {
-      Files.copy(Path.of("demo-farm", f), farm.resolve(f));
-    }
-    Forecast forecast = ForecastReader.read(farm.resolve("forecast.csv"), ZONE);
-    StringBuilder rows = new StringBuilder("time,air_temp_c,dew_point_c,wind_ms\n");
-    for (Instant t = at("14T18:00"); !t.isAfter(at("15T01:10")); t = t.plus(Duration.ofMinutes(10))) {
-      double air = ForecastCorrection.forecastAirC(forecast, t);
-      rows.append(OffsetDateTime.ofInstant(t, ZONE)).append(String.format(Locale.ROOT,
-          ",%.2f,%.2f,1.0%n", air, Math.min(air, -5.0)));
-    }
+    Path farm = DemoNight.farmWithReadings(tmp, at("14T18:00"), at("15T01:10"));
     Path readings = farm.resolve("readings.csv");
-    Files.writeString(readings, rows.toString());
     Path db = farm.resolve("audit.db");
     Replanner rp = Replanner.load(new PlanRequest(farm, null, Path.of("crop-profiles"),
         Path.of("rules"), null), RuleBook::load);
