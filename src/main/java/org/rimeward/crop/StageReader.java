@@ -62,12 +62,8 @@ final class StageReader {
     String id = CropFields.id(s, "add the stage's trade name in kebab case, e.g. id:"
         + " tight-cluster");
     if (id != null) {
-      s = s.renamed("stages[" + id + "]");
-      Integer first = lines.putIfAbsent(id, s.lineOf("id"));
-      if (first != null) {
-        s.problem("id", "'" + id + "' is used twice (first on line " + first + "); each stage id"
-            + " must be unique, so rename or remove one");
-      }
+      s = s.namedById(id, "stages", lines, first -> "'" + id + "' is used twice (first on line "
+          + first + "); each stage id must be unique, so rename or remove one");
     }
     s.allow("id", "name", "bbch", "flowering", "t10", "t90", "tolerance", "as_printed", "source",
         "note");

@@ -56,11 +56,8 @@ final class VarietyReader {
     String id = CropFields.id(v, "add the variety's name in kebab case, e.g. id:"
         + " golden-delicious");
     if (id != null) {
-      v = v.renamed("varieties[" + id + "]");
-      Integer first = lines.putIfAbsent(id, v.lineOf("id"));
-      if (first != null) {
-        v.problem("id", "'" + id + "' is used twice (first on line " + first + "); keep one");
-      }
+      v = v.namedById(id, "varieties", lines, first -> "'" + id + "' is used twice (first on line "
+          + first + "); keep one");
     }
     v.allow("id", "name", "hardiness_offset", "offset_except", "source", "note", "set_by",
         "set_on", "overrides");

@@ -299,13 +299,8 @@ public final class FarmLoader {
     if (id == null) {
       return new IdItem(s, null);
     }
-    Fields named = s.renamed(listField + "[" + id + "]");
-    Integer previous = seen.putIfAbsent(id, named.lineOf("id"));
-    if (previous != null) {
-      named.problem("id", "'" + id + "' is already the id of the " + noun + " on line " + previous
-          + "; give each " + noun + " its own id");
-    }
-    return new IdItem(named, id);
+    return new IdItem(s.namedById(id, listField, seen, first -> "'" + id + "' is already the id"
+        + " of the " + noun + " on line " + first + "; give each " + noun + " its own id"), id);
   }
 
   static String id(Fields s, String hint) {

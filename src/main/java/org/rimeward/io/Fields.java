@@ -45,6 +45,22 @@ public final class Fields {
     return null;
   }
 
+  /**
+   * This item of the list {@code listField}, named by its {@code id} from now on (so later
+   * problems say {@code stages[tight-cluster].t10}), with an id an earlier item already used
+   * reported as a problem on {@code id}: {@code repeated} words it from the line of the first
+   * use. {@code seen} maps the ids read so far to their lines.
+   */
+  public Fields namedById(String id, String listField, java.util.Map<String, Integer> seen,
+      java.util.function.IntFunction<String> repeated) {
+    Fields named = renamed(listField + "[" + id + "]");
+    Integer first = seen.putIfAbsent(id, named.lineOf("id"));
+    if (first != null) {
+      named.problem("id", repeated.apply(first));
+    }
+    return named;
+  }
+
   /** The same mapping under another name in messages (once its id is known). */
   public Fields renamed(String newPath) {
     return new Fields(node, newPath, line, problems);
